@@ -1,0 +1,41 @@
+import { mkdirSync } from 'node:fs'
+import { dirname, resolve } from 'node:path'
+import { Kysely, SqliteDialect, type Dialect } from 'kysely'
+import type { Database } from './schema'
+
+export interface DatabaseConfig {
+  /** `postgres://…` selects PostgreSQL; anything else (or empty) is a SQLite file path. */
+  url: string
+  dataDir: string
+}
+
+// The only dialect-specific code in the project. Queries elsewhere stick to what
+// Kysely renders for both SQLite and PostgreSQL.
+async function createDialect(config: DatabaseConfig): Promise<Dialect> {
+  if (/^postgres(ql)?:\/\//.test(config.url)) {
+    // PostgreSQL needs the `pg` package, installed only by deployments that use it.
+    const pgModule = 'pg'
+    const pg = await import(/* @vite-ignore */ pgModule).catch(() => {
+      throw new Error('NUXT_DATABASE_URL points at PostgreSQL: install the "pg" package (npm i pg) to use it.')
+    }) as { default: { Pool: new (options: { connectionString: string, max: number }) => unknown } }
+    const { PostgresDialect } = await import('kysely')
+    return new PostgresDialect({
+      pool: new pg.default.Pool({ connectionString: config.url, max: 10 }) as never,
+    })
+  }
+  const { default: SQLite } = await import('better-sqlite3')
+  const file = config.url === ':memory:'
+    ? ':memory:'
+    : resolve(config.url || resolve(config.dataDir, 'shadowline.sqlite'))
+  if (file !== ':memory:') mkdirSync(dirname(file), { recursive: true })
+  const sqlite = new SQLite(file)
+  sqlite.pragma('journal_mode = WAL')
+  sqlite.pragma('foreign_keys = ON')
+  sqlite.pragma('busy_timeout = 5000')
+  sqlite.pragma('synchronous = NORMAL')
+  return new SqliteDialect({ database: sqlite })
+}
+
+export async function createDatabase(config: DatabaseConfig): Promise<Kysely<Database>> {
+  return new Kysely<Database>({ dialect: await createDialect(config) })
+}

@@ -1,0 +1,78 @@
+// Shadowline — Nuxt configuration. Source lives at the repository root (srcDir '.').
+export default defineNuxtConfig({
+  compatibilityDate: '2026-11-01',
+  srcDir: '.',
+  serverDir: 'server',
+  dir: {
+    public: 'public',
+  },
+  devtools: { enabled: false },
+  telemetry: false,
+  modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils', '@nuxt/eslint'],
+  css: ['~/assets/css/main.css'],
+  app: {
+    head: {
+      htmlAttrs: { lang: 'en' },
+      title: 'Shadowline',
+      meta: [
+        { name: 'viewport', content: 'width=device-width, initial-scale=1, viewport-fit=cover' },
+        { name: 'theme-color', content: '#0d1117' },
+        { name: 'description', content: 'A shared lunar sketch atlas for observers, clubs and classes.' },
+      ],
+      link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
+    },
+  },
+  runtimeConfig: {
+    // Every key can be set by its NUXT_* environment variable (see README).
+    dataDir: '.data',
+    databaseUrl: '',
+    seedDemo: '',
+    session: {
+      password: '',
+      name: 'shadowline-session',
+      cookie: { sameSite: 'lax' },
+      maxAge: 60 * 60 * 24 * 14,
+    },
+    s3: {
+      endpoint: '',
+      region: 'us-east-1',
+      bucket: 'shadowline',
+      accessKeyId: '',
+      secretAccessKey: '',
+      forcePathStyle: 'true',
+      embeddedPort: '4569',
+    },
+    smtp: {
+      host: '',
+      port: '587',
+      secure: '',
+      user: '',
+      pass: '',
+      from: 'Shadowline <no-reply@shadowline.test>',
+      embeddedPort: '2525',
+    },
+    outboxIntervalMs: '5000',
+    public: {
+      siteUrl: '',
+    },
+  },
+  nitro: {
+    experimental: { tasks: false },
+    externals: {
+      // Native and CommonJS-heavy packages are loaded from the project's node_modules
+      // at run time rather than bundled or copied: the server runs from the checkout.
+      external: ['better-sqlite3', 'sharp', 's3rver', 'smtp-server', 'mailparser', '@aws-sdk/client-s3', 'nodemailer'],
+      trace: false,
+    },
+  },
+  typescript: {
+    strict: true,
+  },
+  eslint: {
+    config: { stylistic: true },
+  },
+  tailwindcss: {
+    cssPath: false,
+    viewer: false,
+  },
+})

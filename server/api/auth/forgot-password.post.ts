@@ -1,0 +1,20 @@
+import { ForgotBody } from '#shared/schemas/auth'
+
+const validate = parseWith(ForgotBody)
+
+// Same answer for every address, known or not.
+export default defineEventHandler(async (event) => {
+  const { email } = await readValidatedBody(event, validate)
+  const db = useDb()
+  const user = await db.selectFrom('users').selectAll()
+    .where('email', '=', email)
+    .where('disabled_at', 'is', null)
+    .executeTakeFirst()
+  if (user) {
+    const token = await issueToken(db, user.id, 'reset-password')
+    await sendMail(db, { to: user.email, ...passwordResetMail(user.name, `${siteUrl(event)}/reset-password?token=${token}`) })
+    await audit(db, { actorId: null, action: 'user.reset-requested', subjectType: 'user', subjectId: user.id })
+  }
+  setResponseStatus(event, 202)
+  return { message: 'If that address has an account, a link to choose a new password is on its way.' }
+})

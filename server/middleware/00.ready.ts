@@ -1,0 +1,4 @@
+// Holds requests until start-up (migrations, storage, mail) has finished.
+export default defineEventHandler(async () => {
+  await whenReady()
+})

@@ -1,0 +1,10 @@
+// Delivers queued mail on a timer, so messages queued while the mail server was
+// down go out once it is back.
+export default defineNitroPlugin((nitro) => {
+  const every = Math.max(1000, Number(useRuntimeConfig().outboxIntervalMs) || 5000)
+  const timer = setInterval(() => {
+    whenReady().then(() => drainOutbox(useDb())).catch(() => undefined)
+  }, every)
+  timer.unref()
+  nitro.hooks.hook('close', () => clearInterval(timer))
+})

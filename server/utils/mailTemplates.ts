@@ -1,0 +1,31 @@
+// Plain-text messages. Names are interpolated as text; nothing is rendered as HTML.
+
+const signature = '\n\nClear skies,\nShadowline\n'
+
+export function verificationMail(name: string, link: string) {
+  return {
+    subject: 'Confirm your Shadowline e-mail address',
+    text: `Hello ${name},\n\nPlease confirm this address to start logging and sketching observations:\n\n${link}\n\nThe link works once and expires in 48 hours. If you did not sign up, ignore this message.${signature}`,
+  }
+}
+
+export function existingAccountMail(name: string, resetLink: string) {
+  return {
+    subject: 'Someone tried to sign up with your address',
+    text: `Hello ${name},\n\nSomeone tried to create a Shadowline account with this e-mail address, which already has one. If it was you, sign in instead, or choose a new password here:\n\n${resetLink}\n\nIf it was not you, nothing has changed and you can ignore this message.${signature}`,
+  }
+}
+
+export function passwordResetMail(name: string, link: string) {
+  return {
+    subject: 'Choose a new Shadowline password',
+    text: `Hello ${name},\n\nUse this link to choose a new password:\n\n${link}\n\nThe link works once and expires in one hour. If you did not ask for it, ignore this message; your password stays as it is.${signature}`,
+  }
+}
+
+export function passwordChangedMail(name: string) {
+  return {
+    subject: 'Your Shadowline password was changed',
+    text: `Hello ${name},\n\nThe password of your Shadowline account was just changed. If this was not you, reset it at once and tell your group's moderator.${signature}`,
+  }
+}

@@ -1,0 +1,40 @@
+import { defineConfig } from 'vitest/config'
+
+// Three projects: fast unit tests of the computation and schemas, server tests
+// against the built app over HTTP, and browser tests driving Debian's chromium.
+// `npm test` builds the app before vitest runs, so the server and browser
+// projects can start `.output/server/index.mjs` directly.
+export default defineConfig({
+  test: {
+    reporters: process.env.CI ? ['default', ['json', { outputFile: '.data/test-results.json' }]] : ['default'],
+    projects: [
+      {
+        test: {
+          name: 'unit',
+          environment: 'node',
+          include: ['tests/unit/**/*.test.ts'],
+        },
+      },
+      {
+        test: {
+          name: 'server',
+          environment: 'node',
+          include: ['tests/server/**/*.test.ts'],
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+          fileParallelism: false,
+        },
+      },
+      {
+        test: {
+          name: 'e2e',
+          environment: 'node',
+          include: ['tests/e2e/**/*.test.ts'],
+          testTimeout: 120_000,
+          hookTimeout: 120_000,
+          fileParallelism: false,
+        },
+      },
+    ],
+  },
+})
