@@ -2,8 +2,9 @@ import type { z } from 'zod'
 
 /**
  * Turns a zod schema into a validator for h3's readValidatedBody / getValidatedQuery /
- * getValidatedRouterParams. A failure is a 400 whose message names the first problem
- * and whose data lists every field's messages, which the client helper maps onto the form.
+ * getValidatedRouterParams. h3 answers a failure with 400 and the thrown error as
+ * `data`; the error carries every field's messages (`data.fields`), which the client
+ * helper maps onto the form, and its message names the first problem.
  */
 export function parseWith<T extends z.ZodType>(schema: T) {
   return (input: unknown): z.infer<T> => {
@@ -16,10 +17,6 @@ export function parseWith<T extends z.ZodType>(schema: T) {
     }
     const first = result.error.issues[0]
     const where = first?.path.length ? `${first.path.join('.')}: ` : ''
-    throw createError({
-      status: 400,
-      message: `${where}${first?.message ?? 'Invalid input'}`,
-      data: { fields },
-    })
+    throw Object.assign(new Error(`${where}${first?.message ?? 'Invalid input'}`), { fields })
   }
 }
