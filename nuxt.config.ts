@@ -1,15 +1,7 @@
 // Shadowline — Nuxt configuration. Source lives at the repository root (srcDir '.').
 export default defineNuxtConfig({
-  compatibilityDate: '2026-11-01',
-  srcDir: '.',
-  serverDir: 'server',
-  dir: {
-    public: 'public',
-  },
-  devtools: { enabled: false },
-  telemetry: false,
   modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils', '@nuxt/eslint'],
-  css: ['~/assets/css/main.css'],
+  devtools: { enabled: false },
   app: {
     head: {
       htmlAttrs: { lang: 'en' },
@@ -22,6 +14,7 @@ export default defineNuxtConfig({
       link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
     },
   },
+  css: ['~/assets/css/main.css'],
   runtimeConfig: {
     // Every key can be set by its NUXT_* environment variable (see README).
     dataDir: '.data',
@@ -56,6 +49,12 @@ export default defineNuxtConfig({
       siteUrl: '',
     },
   },
+  dir: {
+    public: 'public',
+  },
+  srcDir: '.',
+  serverDir: 'server',
+  compatibilityDate: '2026-11-01',
   nitro: {
     experimental: { tasks: false },
     externals: {
@@ -68,6 +67,7 @@ export default defineNuxtConfig({
   typescript: {
     strict: true,
   },
+  telemetry: false,
   eslint: {
     config: { stylistic: true },
   },

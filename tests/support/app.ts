@@ -42,8 +42,11 @@ export async function startApp(env: Record<string, string> = {}): Promise<Runnin
     stdio: ['ignore', 'pipe', 'pipe'],
   })
   let output = ''
-  child.stdout?.on('data', (chunk: Buffer) => { output += chunk.toString() })
-  child.stderr?.on('data', (chunk: Buffer) => { output += chunk.toString() })
+  const collect = (chunk: Buffer) => {
+    output += chunk.toString()
+  }
+  child.stdout?.on('data', collect)
+  child.stderr?.on('data', collect)
   const exited = new Promise<number | null>(done => child.once('exit', code => done(code)))
 
   const deadline = Date.now() + 60_000
