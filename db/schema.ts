@@ -73,6 +73,104 @@ export interface AuditLogTable {
   detail: string | null
 }
 
+export type InstrumentKind = 'naked-eye' | 'binoculars' | 'telescope'
+/** What the instrument does to the image: it feeds the sketch template's flip. */
+export type InstrumentView = 'upright' | 'inverted' | 'mirrored'
+
+export interface ObservationsTable {
+  id: string
+  user_id: string
+  site_id: string
+  observed_at: Instant
+  /** The calendar date at the site, YYYY-MM-DD: the night's rise/set times are for it. */
+  local_date: string
+  time_zone: string
+  instrument_kind: InstrumentKind
+  magnification: number | null
+  aperture_mm: number | null
+  focal_length_mm: number | null
+  eyepiece_mm: number | null
+  view: InstrumentView
+  /** Antoniadi scale, 1 (perfect) to 5 (very bad). */
+  seeing: number | null
+  /** 1 (very poor) to 5 (excellent). */
+  transparency: number | null
+  notes: string
+  /** JSON: the lunar circumstances and that day's rise/set/transit, see shared/types/observation.ts. */
+  circumstances: string
+  computed_with: string
+  illuminated_fraction: number
+  age_days: number
+  phase_name: string
+  colongitude_deg: number
+  created_at: CreatedAt
+  updated_at: Instant
+}
+
+export type MeasurementKind = 'altitude' | 'azimuth'
+
+export interface MeasurementsTable {
+  id: string
+  observation_id: string
+  kind: MeasurementKind
+  /** Clinometer reading or magnetic compass bearing, as read. */
+  raw_deg: number
+  /** Altitude, or true azimuth. */
+  derived_deg: number
+  predicted_deg: number
+  residual_deg: number
+  /** Magnetic declination applied to a compass bearing. */
+  declination_deg: number | null
+  created_at: CreatedAt
+}
+
+export interface PhotosTable {
+  id: string
+  user_id: string
+  observation_id: string
+  taken_at: Instant
+  taken_at_source: 'exif' | 'observer' | 'upload'
+  width: number
+  height: number
+  image_key: string
+  thumb_key: string
+  created_at: CreatedAt
+}
+
+export type SketchStatus = 'draft' | 'submitted' | 'approved' | 'returned' | 'withdrawn'
+
+export interface SketchesTable {
+  id: string
+  observation_id: string
+  user_id: string
+  status: ColumnType<SketchStatus, SketchStatus | undefined, SketchStatus>
+  /** Optimistic concurrency: a save names the version it started from. */
+  version: ColumnType<number, number | undefined, number>
+  schema_version: number
+  /** JSON, validated by the shapes schema on the way in. */
+  shapes: string
+  view_orientation: 'north-up' | 'zenith-up'
+  view_flip: 'none' | 'inverted' | 'mirrored'
+  raster_key: string | null
+  thumb_small_key: string | null
+  thumb_large_key: string | null
+  created_at: CreatedAt
+  updated_at: Instant
+}
+
+export interface SketchRevisionsTable {
+  id: string
+  sketch_id: string
+  version: number
+  schema_version: number
+  shapes: string
+  view_orientation: 'north-up' | 'zenith-up'
+  view_flip: 'none' | 'inverted' | 'mirrored'
+  raster_key: string | null
+  created_by: string
+  created_at: CreatedAt
+}
+
 export interface Database {
   users: UsersTable
   sites: SitesTable
@@ -80,6 +178,11 @@ export interface Database {
   signin_failures: SigninFailuresTable
   mail_outbox: MailOutboxTable
   audit_log: AuditLogTable
+  observations: ObservationsTable
+  measurements: MeasurementsTable
+  photos: PhotosTable
+  sketches: SketchesTable
+  sketch_revisions: SketchRevisionsTable
 }
 
 export type User = Selectable<UsersTable>
@@ -90,3 +193,10 @@ export type NewSite = Insertable<SitesTable>
 export type SiteUpdate = Updateable<SitesTable>
 export type OutboxMail = Selectable<MailOutboxTable>
 export type AuditEntry = Selectable<AuditLogTable>
+export type Observation = Selectable<ObservationsTable>
+export type NewObservation = Insertable<ObservationsTable>
+export type Measurement = Selectable<MeasurementsTable>
+export type Photo = Selectable<PhotosTable>
+export type Sketch = Selectable<SketchesTable>
+export type NewSketch = Insertable<SketchesTable>
+export type SketchRevision = Selectable<SketchRevisionsTable>

@@ -1,10 +1,14 @@
 import type { Migration, MigrationProvider } from 'kysely'
 import * as foundation from './2026-12-02-01-foundation'
+import * as observations from './2026-12-02-02-observations'
+import * as sketches from './2026-12-02-03-sketches'
 
 // Migrations are imported statically so they survive the server bundle.
 // Add each new migration here under its file name; names sort by date.
 export const migrations: Record<string, Migration> = {
   '2026-12-02-01-foundation': foundation,
+  '2026-12-02-02-observations': observations,
+  '2026-12-02-03-sketches': sketches,
 }
 
 export const migrationProvider: MigrationProvider = {
