@@ -9,6 +9,11 @@ export interface NavItem {
 // Each later page adds itself here with the least role that may use it.
 const ITEMS: NavItem[] = [
   { to: '/', label: 'Home' },
+  { to: '/tonight', label: 'Tonight', role: 'learner' },
+  { to: '/observations', label: 'Observations', role: 'learner' },
+  { to: '/worksheet', label: 'Worksheet', role: 'learner' },
+  { to: '/photos', label: 'Photos', role: 'learner' },
+  { to: '/sites', label: 'Sites', role: 'learner' },
   { to: '/safety', label: 'Observing safely' },
   { to: '/admin/users', label: 'Accounts', role: 'admin' },
   { to: '/admin/mail', label: 'Caught mail', role: 'admin' },

@@ -1,5 +1,6 @@
 import type { ColumnType, Insertable, Selectable, Updateable } from 'kysely'
 import type { Role } from '../shared/roles'
+import type { InstrumentKind, InstrumentView } from '../shared/observing/instrument'
 
 // Instants are ISO 8601 UTC strings in every dialect, so the same queries run on
 // SQLite and PostgreSQL and sort correctly as text.
@@ -72,10 +73,6 @@ export interface AuditLogTable {
   subject_id: string | null
   detail: string | null
 }
-
-export type InstrumentKind = 'naked-eye' | 'binoculars' | 'telescope'
-/** What the instrument does to the image: it feeds the sketch template's flip. */
-export type InstrumentView = 'upright' | 'inverted' | 'mirrored'
 
 export interface ObservationsTable {
   id: string

@@ -1,6 +1,10 @@
 import { randomUUID } from 'node:crypto'
 import type { Kysely } from 'kysely'
 import type { Role } from '../shared/roles'
+import { lunationBounds } from '../shared/lunar'
+import { zonedInstant } from '../shared/observing/clock'
+import { altitudeMeasurement, azimuthMeasurement } from '../shared/observing/measurements'
+import { COMPUTED_WITH, computeNight } from '../shared/observing/night'
 import type { Database } from './schema'
 
 // An invented scenario for the demo: the Brackenfield Moonwatchers, a school and
@@ -53,6 +57,10 @@ export async function seedDemo(
       updated_at: at,
     }).execute()
   }
+  const observer = ids.get('observer@shadowline.test')!
+  const field = await db.selectFrom('sites').selectAll()
+    .where('user_id', '=', observer).where('name', '=', DEMO_SITES[0]!.name).executeTakeFirstOrThrow()
+  const observations = await seedSeries(db, observer, field, now)
   await db.insertInto('audit_log').values({
     id: randomUUID(),
     at,
@@ -60,7 +68,95 @@ export async function seedDemo(
     action: 'demo.seeded',
     subject_type: 'database',
     subject_id: null,
-    detail: JSON.stringify({ accounts: DEMO_ACCOUNTS.length, sites: DEMO_SITES.length }),
+    detail: JSON.stringify({ accounts: DEMO_ACCOUNTS.length, sites: DEMO_SITES.length, observations }),
   }).execute()
   return true
+}
+
+/** A small deterministic generator, so the demo is the same on every machine. */
+function random(seed: number): () => number {
+  let state = seed
+  return () => {
+    state = (state + 0x6D2B79F5) | 0
+    let t = Math.imul(state ^ (state >>> 15), 1 | state)
+    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
+  }
+}
+
+const CLOCK_TIME = '18:30'
+const CLOUDY_NIGHTS = new Set([5, 9])
+/** The demo compass reads about 4° high: the worksheet should find that offset. */
+const COMPASS_BIAS_DEG = 4
+
+/**
+ * Idris's campaign: the waxing half of the latest lunation whose first quarter has passed, one observation
+ * an evening at the same clock time, with hand measurements that scatter as a clinometer and a compass do.
+ */
+async function seedSeries(
+  db: Kysely<Database>,
+  userId: string,
+  site: { id: string, latitude: number, longitude: number, elevation_m: number, time_zone: string },
+  now: Date,
+): Promise<number> {
+  let { previousNewMoon } = lunationBounds(now)
+  if (now.getTime() - previousNewMoon.getTime() < 14 * 86_400_000) {
+    previousNewMoon = lunationBounds(new Date(previousNewMoon.getTime() - 86_400_000)).previousNewMoon
+  }
+  const place = { latitude: site.latitude, longitude: site.longitude, elevation: site.elevation_m, timeZone: site.time_zone }
+  const noise = random(20261202)
+  let count = 0
+  for (let night = 2; night <= 13; night += 1) {
+    if (CLOUDY_NIGHTS.has(night)) continue
+    const day = new Date(previousNewMoon.getTime() + night * 86_400_000).toISOString().slice(0, 10)
+    const at = zonedInstant(day, CLOCK_TIME, site.time_zone)
+    const computed = computeNight(at, place)
+    if (computed.altitudeDeg < 3) continue
+    const reading = 90 - computed.altitudeDeg + (noise() - 0.5) * 3
+    const altitude = altitudeMeasurement(Math.round(reading * 2) / 2, computed.altitudeDeg)
+    const magneticGuess = computed.azimuthDeg + COMPASS_BIAS_DEG + (noise() - 0.5) * 4
+    const declination = azimuthMeasurement(0, place, at, 0).declinationDeg ?? 0
+    const bearing = (((Math.round(magneticGuess - declination)) % 360) + 360) % 360
+    const azimuth = azimuthMeasurement(bearing, place, at, computed.azimuthDeg)
+    const id = randomUUID()
+    const stamp = now.toISOString()
+    await db.insertInto('observations').values({
+      id,
+      user_id: userId,
+      site_id: site.id,
+      observed_at: at.toISOString(),
+      local_date: computed.localDate,
+      time_zone: site.time_zone,
+      instrument_kind: 'binoculars',
+      magnification: 10,
+      aperture_mm: 42,
+      focal_length_mm: null,
+      eyepiece_mm: null,
+      view: 'upright',
+      seeing: 2 + Math.floor(noise() * 2),
+      transparency: 3 + Math.floor(noise() * 2),
+      notes: night === 2 ? 'Thin crescent low in the west-south-west, earthshine on the dark part.' : '',
+      circumstances: JSON.stringify(computed),
+      computed_with: COMPUTED_WITH,
+      illuminated_fraction: computed.illuminatedFraction,
+      age_days: computed.ageDays,
+      phase_name: computed.phaseName,
+      colongitude_deg: computed.colongitudeDeg,
+      created_at: stamp,
+      updated_at: stamp,
+    }).execute()
+    await db.insertInto('measurements').values([altitude, azimuth].map(m => ({
+      id: randomUUID(),
+      observation_id: id,
+      kind: m.kind,
+      raw_deg: m.rawDeg,
+      derived_deg: m.derivedDeg,
+      predicted_deg: m.predictedDeg,
+      residual_deg: m.residualDeg,
+      declination_deg: m.declinationDeg,
+      created_at: stamp,
+    }))).execute()
+    count += 1
+  }
+  return count
 }

@@ -33,6 +33,8 @@ export interface ObjectStore {
 
 /** A small store over any S3-compatible service: the embedded s3rver or a real one. */
 export function createObjectStore(config: ObjectStoreConfig): ObjectStore {
+  // The pinned SDK runs on Node 20; its notice concerns later releases only.
+  process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= 'true'
   const client = new S3Client({
     endpoint: config.endpoint || undefined,
     region: config.region,

@@ -24,7 +24,7 @@ import { requireDate, requireSite } from './validate'
 import { LUNAR_MODEL_VERSION } from './version'
 import type { GeocentricDisk, LunarCircumstances, Site } from './types'
 
-// IAU mean radius of the Moon (Archinal et al. 2011, table 5).
+// IAU mean radius of the Moon (WGCCRE 2009 report, Archinal et al. 2011), as astronomy-engine uses.
 const MOON_RADIUS_KM = 1737.4
 
 /** Disk quantities for a viewpoint; `moon` and `sun` point from it, in the true equator of date. */
@@ -77,7 +77,7 @@ export function lunarCircumstances(at: Date, site: Site): LunarCircumstances {
     phaseAngleDeg: disk.phaseAngleDeg,
     elongationDeg: disk.elongationDeg,
     waxing: longitudeDifference < 180,
-    ageDays: moonAgeDays(when),
+    ageDays: moonAgeDays(scene.time),
     phaseName: phaseNameFor(longitudeDifference),
     brightLimbAngleDeg: disk.brightLimbAngleDeg,
     parallacticAngleDeg: parallacticAngle(hourAngleDeg, moonPlace.decDeg, place.latitude),

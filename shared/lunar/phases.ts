@@ -14,11 +14,12 @@ const SYNODIC_MONTH_DAYS = 29.530588861
 // ±1.5 days always brackets it.
 const SEARCH_HALF_WINDOW_DAYS = 1.5
 
-// Almanac phases are instants of equal APPARENT geocentric longitude. astronomy-engine's MoonPhase compares the
-// Moon with the Sun's geometric direction, which is ahead of the apparent one by the aberration in longitude,
-// 20.49″ (Meeus ch. 25, eq. 25.10, κ/R with R ≈ 1 AU); the Moon's own light-time (1.3 s at 13.2°/day) puts
-// its apparent position 0.7″ behind. Left alone, every phase comes out about 38 s late; aiming the search at
-// a longitude difference 19.8″ short of the nominal one lands on the apparent instant (to about a second).
+// Almanac phases are instants of equal APPARENT geocentric longitude. astronomy-engine's MoonPhase compares
+// the Moon with the Sun's geometric direction, which is ahead of the apparent one by the aberration in
+// longitude, 20.49″ (Meeus ch. 25: −20.4898″/R, R ≈ 1 AU, ±0.35″ over the year); the Moon's own light-time
+// (1.3 s at 13.2°/day) puts its apparent position 0.7″ behind. Left alone, the library's phases come out
+// 34–44 s late; aiming its search at a longitude difference 19.8″ short of the nominal one lands on the
+// apparent instant to about a second.
 const APPARENT_PHASE_SHIFT_DEG = (20.49 - 0.7) / 3600
 
 const KINDS: readonly PhaseKind[] = ['new', 'first-quarter', 'full', 'last-quarter']
@@ -48,21 +49,28 @@ function phaseInstantMs(k: number, quarter: number): number {
   return hit.date.getTime()
 }
 
-function lunationNumberNear(at: Date): number {
-  return Math.floor((MakeTime(at).tt - MEAN_NEW_MOON_TT) / SYNODIC_MONTH_DAYS)
+function lunationNumberNear(time: AstroTime): number {
+  return Math.floor((time.tt - MEAN_NEW_MOON_TT) / SYNODIC_MONTH_DAYS)
+}
+
+/** Lunation number k with new moon k ≤ the instant < new moon k + 1. */
+function lunationOf(time: AstroTime): number {
+  const ms = time.date.getTime()
+  let k = lunationNumberNear(time)
+  while (phaseInstantMs(k, 0) > ms) k -= 1
+  while (phaseInstantMs(k + 1, 0) <= ms) k += 1
+  return k
 }
 
 /** The new moons on either side of `at`: previous ≤ at < next. */
 export function lunationBounds(at: Date): LunationBounds {
-  const ms = requireDate(at, 'at').getTime()
-  let k = lunationNumberNear(at)
-  while (phaseInstantMs(k, 0) > ms) k -= 1
-  while (phaseInstantMs(k + 1, 0) <= ms) k += 1
+  const k = lunationOf(MakeTime(requireDate(at, 'at')))
   return { previousNewMoon: new Date(phaseInstantMs(k, 0)), nextNewMoon: new Date(phaseInstantMs(k + 1, 0)) }
 }
 
-export function moonAgeDays(at: Date): number {
-  return (at.getTime() - lunationBounds(at).previousNewMoon.getTime()) / DAY_MS
+/** Days since the previous new moon; `time` already validated. */
+export function moonAgeDays(time: AstroTime): number {
+  return (time.date.getTime() - phaseInstantMs(lunationOf(time), 0)) / DAY_MS
 }
 
 const MAX_SPAN_DAYS = 25 * 366
@@ -74,7 +82,7 @@ export function phaseEvents(from: Date, to: Date): PhaseEvent[] {
   if (end < start) throw new RangeError('to must not be earlier than from')
   if (end - start > MAX_SPAN_DAYS * DAY_MS) throw new RangeError('from and to must be at most 25 years apart')
   const events: PhaseEvent[] = []
-  for (let k = lunationNumberNear(from) - 1; k <= lunationNumberNear(to) + 1; k++) {
+  for (let k = lunationNumberNear(MakeTime(from)) - 1; k <= lunationNumberNear(MakeTime(to)) + 1; k++) {
     KINDS.forEach((kind, quarter) => {
       const ms = phaseInstantMs(k, quarter)
       if (ms >= start && ms < end) events.push({ kind, at: new Date(ms) })

@@ -7,15 +7,15 @@ export interface Site {
   elevation?: number
 }
 
-export type PhaseName =
-  | 'new'
-  | 'waxing-crescent'
-  | 'first-quarter'
-  | 'waxing-gibbous'
-  | 'full'
-  | 'waning-gibbous'
-  | 'last-quarter'
-  | 'waning-crescent'
+export type PhaseName
+  = | 'new'
+    | 'waxing-crescent'
+    | 'first-quarter'
+    | 'waxing-gibbous'
+    | 'full'
+    | 'waning-gibbous'
+    | 'last-quarter'
+    | 'waning-crescent'
 
 export type PhaseKind = 'new' | 'first-quarter' | 'full' | 'last-quarter'
 
@@ -125,7 +125,8 @@ export interface TerminatorOutline {
 
 /**
  * A view as a 2×2 linear map from the position-angle frame (north-up, no flip: celestial north +y, east −x)
- * to view coordinates: x′ = a·x + b·y, y′ = c·x + d·y.
+ * to view coordinates: x′ = a·x + b·y, y′ = c·x + d·y. To draw position-angle-frame shapes on a canvas of
+ * disk radius r px centred at (cx, cy), whose y grows downward: ctx.setTransform(r·a, −r·c, r·b, −r·d, cx, cy).
  */
 export interface ViewTransform {
   a: number

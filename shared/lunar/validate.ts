@@ -8,9 +8,10 @@ import type { DiskView, Site } from './types'
 const EARLIEST = Date.UTC(1000, 0, 1)
 const LATEST = Date.UTC(3000, 0, 1)
 
-// The World Magnetic Model is defined from 1 km below the ellipsoid; 100 km covers any balloon or aircraft.
-const LOWEST_ELEVATION_M = -1000
-const HIGHEST_ELEVATION_M = 100_000
+// astronomy-engine's atmosphere (used for refraction at rising and setting) starts at −500 m, below the Dead
+// Sea shore; 10 km is above every mountain and covers an airliner. Higher, its rise/set search breaks down.
+const LOWEST_ELEVATION_M = -500
+const HIGHEST_ELEVATION_M = 10_000
 
 function describe(value: unknown): string {
   if (typeof value === 'string') return JSON.stringify(value)
@@ -23,6 +24,13 @@ function describe(value: unknown): string {
 export function requireNumber(value: unknown, field: string, min: number, max: number): number {
   if (typeof value !== 'number' || !Number.isFinite(value) || value < min || value > max) {
     throw new RangeError(`${field} must be a number from ${min} to ${max}; got ${describe(value)}`)
+  }
+  return value
+}
+
+export function requireFinite(value: unknown, field: string): number {
+  if (typeof value !== 'number' || !Number.isFinite(value)) {
+    throw new RangeError(`${field} must be a finite number; got ${describe(value)}`)
   }
   return value
 }

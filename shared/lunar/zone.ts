@@ -1,6 +1,6 @@
 // Local calendar days in an IANA time zone, with the zone rules the runtime's Intl carries.
 
-import { requireLocalDate } from './validate'
+import { requireDate, requireLocalDate } from './validate'
 
 const DAY_MS = 86_400_000
 
@@ -67,14 +67,14 @@ export function localDayBounds(localDate: string, timeZone: string): { start: Da
   const midnight = new Date(0)
   midnight.setUTCFullYear(year, month - 1, day)
   const wall = midnight.getTime()
-  return {
-    start: new Date(startOfLocalDay(wall, formatter)),
-    end: new Date(startOfLocalDay(wall + DAY_MS, formatter)),
-  }
+  const start = startOfLocalDay(wall, formatter)
+  const end = startOfLocalDay(wall + DAY_MS, formatter)
+  if (end <= start) throw new RangeError(`localDate ${localDate} does not exist in ${timeZone}: the zone skipped that day`)
+  return { start: new Date(start), end: new Date(end) }
 }
 
 /** The calendar date (YYYY-MM-DD) of an instant in a time zone. */
 export function localDateOf(at: Date, timeZone: string): string {
-  const wall = new Date(wallClockMs(at.getTime(), formatterFor(timeZone, 'timeZone')))
+  const wall = new Date(wallClockMs(requireDate(at, 'at').getTime(), formatterFor(timeZone, 'timeZone')))
   return wall.toISOString().slice(0, 10)
 }

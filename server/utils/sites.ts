@@ -1,0 +1,38 @@
+import tzlookup from '@photostructure/tz-lookup'
+import type { Site } from '../../db/schema'
+import type { ObservingSite } from '#shared/observing/night'
+
+/** The zone from the coordinates, with an offline boundary table (no network look-up). */
+export function timeZoneAt(latitude: number, longitude: number): string {
+  return tzlookup(latitude, longitude)
+}
+
+export function observingSite(site: Site): ObservingSite {
+  return { latitude: site.latitude, longitude: site.longitude, elevation: site.elevation_m, timeZone: site.time_zone }
+}
+
+export function siteDto(site: Site) {
+  return {
+    id: site.id,
+    name: site.name,
+    latitude: site.latitude,
+    longitude: site.longitude,
+    elevation: site.elevation_m,
+    timeZone: site.time_zone,
+  }
+}
+
+/** The owner's site, or a 404 that says nothing about anyone else's. */
+export async function ownSite(userId: string, siteId: string): Promise<Site> {
+  const site = await useDb().selectFrom('sites').selectAll()
+    .where('id', '=', siteId)
+    .where('user_id', '=', userId)
+    .executeTakeFirst()
+  if (!site) throw createError({ status: 404, message: 'No such site among yours.' })
+  return site
+}
+
+/** Published entries show a site only to 0.1°, never the owner's precise place. */
+export function roundedCoordinate(value: number): number {
+  return Math.round(value * 10) / 10
+}
