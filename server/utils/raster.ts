@@ -80,6 +80,11 @@ export async function storeRaster(store: ObjectStore, prefix: string, prepared: 
   return keys
 }
 
+/** Checks, converts and stores an uploaded raster; nothing is written unless every check passes. */
+export async function ingestRaster(store: ObjectStore, prefix: string, input: Uint8Array, size: number): Promise<RasterKeys> {
+  return storeRaster(store, prefix, await prepareRaster(input, size))
+}
+
 /** Removes the images of a save that lost a race; a failure leaves an unreferenced object, nothing worse. */
 export async function discardRaster(store: ObjectStore, keys: RasterKeys): Promise<void> {
   await Promise.all(Object.values(keys).map(key => store.remove(key).catch(() => undefined)))

@@ -32,9 +32,8 @@ export default defineEventHandler(async (event): Promise<SketchSaved> => {
   if (save.baseVersion !== sketch.version) throw sketchConflict(sketch)
   if (!upload.raster) throw createError({ status: 400, message: 'The save has no raster image.' })
 
-  const prepared = await prepareRaster(upload.raster, SKETCH_SIZE)
   const store = useObjectStore()
-  const keys = await storeRaster(store, sketchObjectPrefix(id, save.saveId), prepared)
+  const keys = await ingestRaster(store, sketchObjectPrefix(id, save.saveId), upload.raster, SKETCH_SIZE)
   const at = nowIso()
   const version = save.baseVersion + 1
   const shapes = JSON.stringify(save.shapes)
