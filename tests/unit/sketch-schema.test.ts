@@ -28,7 +28,7 @@ function editorDrawing(): Stroke[] {
     drawn({ tool: 'pencil', tone: 1, size: 6 }, arc(1100, 900, 300, 80), true),
     drawn({ tool: 'pencil', tone: 0.5, size: 3 }, arc(900, 1000, 120, 40)),
     drawn({ tool: 'shade', tone: 0.25, size: 90 }, arc(1000, 1100, 200, 60)),
-    drawn({ tool: 'eraser', size: 40 }, arc(1000, 1000, 50, 20), true),
+    drawn({ tool: 'eraser', tone: 0, size: 40 }, arc(1000, 1000, 50, 20), true),
     drawn({ tool: 'fill', tone: 0, size: 0 }, [[700, 700, 0.5], [900, 700, 0.5], [800, 950, 0.5], [690, 820, 0.5]]),
   ]
 }
