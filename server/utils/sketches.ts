@@ -1,10 +1,13 @@
+import { createError, getRequestHeader } from 'h3'
 import type { H3Event } from 'h3'
 import type { Kysely } from 'kysely'
 import type { Database, User } from '../../db/schema'
-import { hasRole } from '#shared/roles'
-import { EDITABLE_SKETCH_STATUSES } from '#shared/sketch/api'
-import type { SketchDetail, SketchSummary } from '#shared/sketch/api'
-import type { SketchShapes } from '#shared/sketch/schema'
+// Explicit and relative imports (not the #shared alias and auto-imports) let the server tests call these
+// helpers, sketchesForObservations above all, directly against a test app's database.
+import { hasRole } from '../../shared/roles'
+import { EDITABLE_SKETCH_STATUSES } from '../../shared/sketch/api'
+import type { SketchDetail, SketchSummary } from '../../shared/sketch/api'
+import type { SketchShapes } from '../../shared/sketch/schema'
 
 /** A save is the drawing's JSON plus a 2048² image; well-formed ones are far below this. */
 export const SKETCH_SAVE_MAX_BYTES = 24 * 1024 * 1024
