@@ -47,7 +47,6 @@ export function useSketchSync(id: string) {
   let pending: LocalCopy['pending'] = null
   let lastEditAt = 0
   let lastAttemptAt = 0
-  let writeTimer: ReturnType<typeof setTimeout> | undefined
   let tickTimer: ReturnType<typeof setInterval> | undefined
   let saving: Promise<void> | null = null
 
@@ -59,9 +58,22 @@ export function useSketchSync(id: string) {
     await writeLocal(localKey(id), copy).catch(() => undefined)
   }
 
+  let writing: Promise<void> | null = null
+  let writeAgain = false
+
+  /** Writes at once; changes made while a write is running are written right after it, in one go. */
   function persistSoon() {
-    clearTimeout(writeTimer)
-    writeTimer = setTimeout(() => void persist(), 150)
+    if (writing) {
+      writeAgain = true
+      return
+    }
+    writing = persist().finally(() => {
+      writing = null
+      if (writeAgain) {
+        writeAgain = false
+        persistSoon()
+      }
+    })
   }
 
   /** Opens the sketch from the server's answer and whatever this device still holds. */
@@ -175,7 +187,8 @@ export function useSketchSync(id: string) {
 
   watch(() => store.edits, () => {
     lastEditAt = Date.now()
-    if (store.sync === 'saved') store.sync = 'pending'
+    // Opening or reloading a copy also moves the counter; only a real edit makes the copy pending.
+    if (store.sync === 'saved' && store.dirty) store.sync = 'pending'
     persistSoon()
   })
 
@@ -200,7 +213,6 @@ export function useSketchSync(id: string) {
     window.removeEventListener('online', wentOnline)
     window.removeEventListener('offline', wentOffline)
     clearInterval(tickTimer)
-    clearTimeout(writeTimer)
     void persist()
   })
 

@@ -45,7 +45,7 @@ export const useSketchStore = defineStore('sketch', () => {
 
   const tool = ref<EditorTool>('pencil')
   const tone = ref(1)
-  const sizes = ref({ pencil: 4, shade: 90, eraser: 32 })
+  const sizes = ref({ pencil: 8, shade: 90, eraser: 32 })
   const templateVisible = ref(true)
   const templateOpacity = ref(0.7)
   const gridVisible = ref(false)
