@@ -46,13 +46,19 @@ export async function sketchesForObservations(
  * may read (a draft is private to them). The check is part of the query, so another user's sketch is simply
  * not found.
  */
-export async function findSketch(db: Kysely<Database>, user: User, id: string, access: 'read' | 'write') {
+export async function findSketch(db: Kysely<Database>, user: User, id: string, access: 'read' | 'write', withShapes = false) {
   const moderator = hasRole(user.role, 'moderator')
   return db.selectFrom('sketches as k')
     .innerJoin('observations as o', 'o.id', 'k.observation_id')
     .innerJoin('sites as s', 's.id', 'o.site_id')
     .innerJoin('users as u', 'u.id', 'k.user_id')
-    .selectAll('k')
+    // The drawing can run to megabytes; only the editor's load reads it.
+    .select([
+      'k.id', 'k.observation_id', 'k.user_id', 'k.status', 'k.version', 'k.schema_version',
+      'k.view_orientation', 'k.view_flip', 'k.raster_key', 'k.thumb_small_key', 'k.thumb_large_key',
+      'k.created_at', 'k.updated_at',
+    ])
+    .$if(withShapes, qb => qb.select('k.shapes'))
     .select([
       'o.observed_at', 'o.time_zone', 'o.view as instrument_view',
       's.name as site_name', 's.latitude', 's.longitude', 's.elevation_m',
@@ -69,7 +75,9 @@ export function sketchIsEditable(row: FoundSketch, user: User): boolean {
   return row.user_id === user.id && EDITABLE_SKETCH_STATUSES.includes(row.status)
 }
 
+/** The editor's view of a sketch; `row` must come from findSketch with its shapes. */
 export function toSketchDetail(row: FoundSketch, user: User): SketchDetail {
+  if (row.shapes == null) throw new Error('toSketchDetail needs the sketch loaded with its shapes')
   return {
     id: row.id,
     status: row.status,
@@ -78,7 +86,7 @@ export function toSketchDetail(row: FoundSketch, user: User): SketchDetail {
     owner: { name: row.owner_name },
     view: { orientation: row.view_orientation, flip: row.view_flip },
     // Validated by the shapes schema when it was saved.
-    shapes: JSON.parse(row.shapes) as SketchShapes,
+    shapes: JSON.parse(row.shapes ?? 'null') as SketchShapes,
     hasRaster: row.raster_key != null,
     createdAt: row.created_at,
     updatedAt: row.updated_at,

@@ -60,7 +60,7 @@ function Points(minPoints: number) {
   })
 }
 
-export const PencilStroke = z.object({
+export const PencilStroke = z.strictObject({
   id: StrokeId,
   tool: z.literal('pencil'),
   tone: Tone,
@@ -70,7 +70,7 @@ export const PencilStroke = z.object({
   points: Points(1),
 })
 
-export const ShadeStroke = z.object({
+export const ShadeStroke = z.strictObject({
   id: StrokeId,
   tool: z.literal('shade'),
   tone: Tone,
@@ -78,7 +78,7 @@ export const ShadeStroke = z.object({
   points: Points(1),
 })
 
-export const EraserStroke = z.object({
+export const EraserStroke = z.strictObject({
   id: StrokeId,
   tool: z.literal('eraser'),
   size: Size('eraser'),
@@ -87,7 +87,7 @@ export const EraserStroke = z.object({
 })
 
 /** A closed outline filled with one tone: the quick way to lay down a large dark area. */
-export const FillStroke = z.object({
+export const FillStroke = z.strictObject({
   id: StrokeId,
   tool: z.literal('fill'),
   tone: Tone,
@@ -98,9 +98,10 @@ export const Stroke = z.discriminatedUnion('tool', [PencilStroke, ShadeStroke, E
   error: `A stroke's tool is one of ${SKETCH_TOOLS.join(', ')}.`,
 })
 
-export const SketchShapes = z.object({
+// Strict objects: an unknown key is refused rather than dropped, so a save's text can be stored as sent.
+export const SketchShapes = z.strictObject({
   schemaVersion: z.literal(SHAPES_SCHEMA_VERSION, `This editor reads drawings of schema version ${SHAPES_SCHEMA_VERSION}.`),
-  frame: z.object({
+  frame: z.strictObject({
     size: z.literal(SKETCH_SIZE),
     diskRadius: z.literal(DISK_RADIUS),
   }),
@@ -142,25 +143,30 @@ export const ThumbnailQuery = z.object({
   size: z.enum(['256', '512'], { error: 'A thumbnail is 256 or 512 pixels.' }).default('256'),
 })
 
+/** The drawing as sent in a save: JSON text, parsed and checked against the shapes schema. */
+export const SketchShapesText = z.string().transform((text, ctx) => {
+  try {
+    return JSON.parse(text) as unknown
+  }
+  catch {
+    ctx.addIssue({ code: 'custom', message: 'The drawing is not valid JSON.' })
+    return z.NEVER
+  }
+}).pipe(SketchShapes)
+
 /**
- * The text fields of a save (multipart): the version the editor started from, an id that makes a retried
- * upload land once, the view the strokes are drawn in, and the drawing as JSON text.
+ * The small text fields of a save (multipart): the version the editor started from, an id that makes a
+ * retried upload land once, and the view the strokes are drawn in.
  */
-export const SaveSketchFields = z.object({
+export const SaveSketchHead = z.object({
   baseVersion: z.coerce.number().int().min(1, 'baseVersion is the version you started from.'),
   saveId: z.uuid('saveId must be a UUID.'),
   orientation: SketchOrientation,
   flip: SketchFlip,
-  shapes: z.string().transform((text, ctx) => {
-    try {
-      return JSON.parse(text) as unknown
-    }
-    catch {
-      ctx.addIssue({ code: 'custom', message: 'The drawing is not valid JSON.' })
-      return z.NEVER
-    }
-  }).pipe(SketchShapes),
 })
+
+/** Every text field of a save, the drawing included. */
+export const SaveSketchFields = SaveSketchHead.extend({ shapes: SketchShapesText })
 
 export type SaveSketchFields = z.infer<typeof SaveSketchFields>
 

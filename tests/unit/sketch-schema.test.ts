@@ -135,6 +135,12 @@ describe('the shapes schema refuses bad drawings', () => {
     refuses([noPen], /strokes\.0\.pen: .*expected boolean/)
   })
 
+  it('refuses keys the schema does not know, so a save can be stored as sent', () => {
+    refuses([{ ...good(), colour: 'red' }], /Unrecognized key/i)
+    const result = SketchShapes.safeParse({ ...emptyShapes(), owner: 'someone' })
+    expect(result.success).toBe(false)
+  })
+
   it('refuses a repeated stroke id and a malformed one', () => {
     const once = good()
     refuses([once, { ...once }], /appears twice/)

@@ -6,7 +6,7 @@ const validParams = parseWith(SketchIdParams)
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'observer')
   const { id } = await getValidatedRouterParams(event, validParams)
-  const row = await findSketch(useDb(), user, id, 'read')
+  const row = await findSketch(useDb(), user, id, 'read', true)
   if (!row) throw createError({ status: 404, message: 'No such sketch.' })
   setResponseHeader(event, 'cache-control', 'private, no-store')
   return toSketchDetail(row, user)

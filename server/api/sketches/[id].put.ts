@@ -1,10 +1,12 @@
+import { z } from 'zod'
 import type { SketchSaved } from '#shared/sketch/api'
 import { EDITABLE_SKETCH_STATUSES } from '#shared/sketch/api'
 import { SKETCH_SIZE } from '#shared/sketch/frame'
-import { SHAPES_SCHEMA_VERSION, SaveSketchFields, SketchIdParams } from '#shared/sketch/schema'
+import { SHAPES_SCHEMA_VERSION, SaveSketchHead, SketchIdParams, SketchShapesText } from '#shared/sketch/schema'
 
 const validParams = parseWith(SketchIdParams)
-const validFields = parseWith(SaveSketchFields)
+const validHead = parseWith(SaveSketchHead)
+const validShapes = parseWith(z.object({ shapes: SketchShapesText }))
 
 /**
  * Saves the drawing and its raster as the next version. The save names the version it started from; if
@@ -20,7 +22,7 @@ export default defineEventHandler(async (event): Promise<SketchSaved> => {
     throw createError({ status: 409, message: `This sketch is ${sketch.status} and can no longer be changed.` })
   }
   const upload = await parseSketchUpload(event, await readSketchBody(event, SKETCH_SAVE_MAX_BYTES))
-  const save = validSketchFields(validFields, upload.fields)
+  const save = validSketchFields(validHead, upload.fields)
 
   // A retried upload whose first attempt landed, though its answer was lost.
   const landed = await db.selectFrom('sketch_revisions')
@@ -32,11 +34,17 @@ export default defineEventHandler(async (event): Promise<SketchSaved> => {
   if (save.baseVersion !== sketch.version) throw sketchConflict(sketch)
   if (!upload.raster) throw createError({ status: 400, message: 'The save has no raster image.' })
 
+  // libvips works on the raster in its own threads while the drawing is checked here; nothing is stored
+  // until both have passed.
+  const rasterWork = prepareRaster(upload.raster, SKETCH_SIZE)
+  rasterWork.catch(() => undefined)
+  // The strict shapes schema admits no key it does not know, so the text is stored as sent.
+  const shapes = upload.fields.shapes ?? ''
+  validSketchFields(validShapes, { shapes })
   const store = useObjectStore()
-  const keys = await ingestRaster(store, sketchObjectPrefix(id, save.saveId), upload.raster, SKETCH_SIZE)
+  const keys = await storeRaster(store, sketchObjectPrefix(id, save.saveId), await rasterWork)
   const at = nowIso()
   const version = save.baseVersion + 1
-  const shapes = JSON.stringify(save.shapes)
   const saved = await db.transaction().execute(async (trx) => {
     const updated = await trx.updateTable('sketches')
       .set({
