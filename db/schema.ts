@@ -1,6 +1,9 @@
 import type { ColumnType, Insertable, Selectable, Updateable } from 'kysely'
 import type { Role } from '../shared/roles'
 import type { InstrumentKind, InstrumentView } from '../shared/observing/instrument'
+import type { SketchStatus } from '../shared/review/lifecycle'
+
+export type { SketchStatus }
 
 // Instants are ISO 8601 UTC strings in every dialect, so the same queries run on
 // SQLite and PostgreSQL and sort correctly as text.
@@ -134,8 +137,6 @@ export interface PhotosTable {
   created_at: CreatedAt
 }
 
-export type SketchStatus = 'draft' | 'submitted' | 'approved' | 'returned' | 'withdrawn'
-
 export interface SketchesTable {
   id: string
   observation_id: string
@@ -151,6 +152,7 @@ export interface SketchesTable {
   raster_key: string | null
   thumb_small_key: string | null
   thumb_large_key: string | null
+  submitted_at: Instant | null
   created_at: CreatedAt
   updated_at: Instant
 }
@@ -168,6 +170,33 @@ export interface SketchRevisionsTable {
   created_at: CreatedAt
 }
 
+export interface SketchReviewsTable {
+  id: string
+  sketch_id: string
+  actor_id: string
+  from_status: SketchStatus
+  to_status: SketchStatus
+  comment: string
+  created_at: CreatedAt
+}
+
+export interface AtlasEntriesTable {
+  sketch_id: string
+  observer_id: string
+  observer_name: string
+  observed_at: Instant
+  age_days: number
+  phase_name: string
+  colongitude_deg: number
+  illuminated_fraction: number
+  instrument_kind: InstrumentKind
+  instrument_label: string
+  /** Rounded to 0.1°: the public never sees an observer's precise place. */
+  site_latitude: number
+  site_longitude: number
+  published_at: Instant
+}
+
 export interface Database {
   users: UsersTable
   sites: SitesTable
@@ -180,6 +209,8 @@ export interface Database {
   photos: PhotosTable
   sketches: SketchesTable
   sketch_revisions: SketchRevisionsTable
+  sketch_reviews: SketchReviewsTable
+  atlas_entries: AtlasEntriesTable
 }
 
 export type User = Selectable<UsersTable>
@@ -197,3 +228,5 @@ export type Photo = Selectable<PhotosTable>
 export type Sketch = Selectable<SketchesTable>
 export type NewSketch = Insertable<SketchesTable>
 export type SketchRevision = Selectable<SketchRevisionsTable>
+export type SketchReview = Selectable<SketchReviewsTable>
+export type AtlasEntry = Selectable<AtlasEntriesTable>

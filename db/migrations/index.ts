@@ -2,6 +2,7 @@ import type { Migration, MigrationProvider } from 'kysely'
 import * as foundation from './2026-12-02-01-foundation'
 import * as observations from './2026-12-02-02-observations'
 import * as sketches from './2026-12-02-03-sketches'
+import * as review from './2026-12-02-06-review'
 
 // Migrations are imported statically so they survive the server bundle.
 // Add each new migration here under its file name; names sort by date.
@@ -9,6 +10,7 @@ export const migrations: Record<string, Migration> = {
   '2026-12-02-01-foundation': foundation,
   '2026-12-02-02-observations': observations,
   '2026-12-02-03-sketches': sketches,
+  '2026-12-02-06-review': review,
 }
 
 export const migrationProvider: MigrationProvider = {
