@@ -12,6 +12,7 @@ const ITEMS: NavItem[] = [
   { to: '/atlas', label: 'Atlas' },
   { to: '/tonight', label: 'Tonight', role: 'learner' },
   { to: '/observations', label: 'Observations', role: 'learner' },
+  { to: '/sketches', label: 'Sketches', role: 'observer' },
   { to: '/worksheet', label: 'Worksheet', role: 'learner' },
   { to: '/photos', label: 'Photos', role: 'learner' },
   { to: '/sites', label: 'Sites', role: 'learner' },

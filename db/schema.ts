@@ -168,6 +168,8 @@ export interface SketchRevisionsTable {
   raster_key: string | null
   created_by: string
   created_at: CreatedAt
+  /** The editor's id for the save that made this revision (2026-12-02-05); null for the first, empty one. */
+  save_id: ColumnType<string | null, string | null | undefined, never>
 }
 
 export interface SketchReviewsTable {

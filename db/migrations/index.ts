@@ -2,6 +2,7 @@ import type { Migration, MigrationProvider } from 'kysely'
 import * as foundation from './2026-12-02-01-foundation'
 import * as observations from './2026-12-02-02-observations'
 import * as sketches from './2026-12-02-03-sketches'
+import * as sketchSaveId from './2026-12-02-05-sketch-save-id'
 import * as review from './2026-12-02-06-review'
 
 // Migrations are imported statically so they survive the server bundle.
@@ -10,6 +11,7 @@ export const migrations: Record<string, Migration> = {
   '2026-12-02-01-foundation': foundation,
   '2026-12-02-02-observations': observations,
   '2026-12-02-03-sketches': sketches,
+  '2026-12-02-05-sketch-save-id': sketchSaveId,
   '2026-12-02-06-review': review,
 }
 

@@ -45,6 +45,13 @@ const ROUTES: Record<string, Role | null> = {
   'GET /api/admin/users': 'admin',
   'PATCH /api/admin/users/[id]': 'admin',
   'GET /api/admin/mail': 'admin',
+  'GET /api/sketches': 'observer',
+  'POST /api/sketches': 'observer',
+  'GET /api/sketches/[id]': 'observer',
+  'PUT /api/sketches/[id]': 'observer',
+  'GET /api/sketches/[id]/revisions': 'observer',
+  'GET /api/sketches/[id]/thumbnail': 'observer',
+  'GET /api/sketches/[id]/raster': 'observer',
 }
 
 const apiDir = resolve(import.meta.dirname, '../../server/api')

@@ -1,0 +1,81 @@
+import type { SketchSaved } from '#shared/sketch/api'
+import { EDITABLE_SKETCH_STATUSES } from '#shared/sketch/api'
+import { SKETCH_SIZE } from '#shared/sketch/frame'
+import { SHAPES_SCHEMA_VERSION, SaveSketchFields, SketchIdParams } from '#shared/sketch/schema'
+
+const validParams = parseWith(SketchIdParams)
+const validFields = parseWith(SaveSketchFields)
+
+/**
+ * Saves the drawing and its raster as the next version. The save names the version it started from; if
+ * another save landed since, the answer is 409 with the current version and nothing is written.
+ */
+export default defineEventHandler(async (event): Promise<SketchSaved> => {
+  const user = await requireRole(event, 'observer')
+  const { id } = await getValidatedRouterParams(event, validParams)
+  const db = useDb()
+  const sketch = await findSketch(db, user, id, 'write')
+  if (!sketch) throw createError({ status: 404, message: 'No such sketch.' })
+  if (!sketchIsEditable(sketch, user)) {
+    throw createError({ status: 409, message: `This sketch is ${sketch.status} and can no longer be changed.` })
+  }
+  const upload = await parseSketchUpload(event, await readSketchBody(event, SKETCH_SAVE_MAX_BYTES))
+  const save = validSketchFields(validFields, upload.fields)
+
+  // A retried upload whose first attempt landed, though its answer was lost.
+  const landed = await db.selectFrom('sketch_revisions')
+    .select(['version', 'created_at', 'raster_key'])
+    .where('sketch_id', '=', id)
+    .where('save_id', '=', save.saveId)
+    .executeTakeFirst()
+  if (landed) return { id, version: landed.version, updatedAt: landed.created_at, hasRaster: landed.raster_key != null }
+  if (save.baseVersion !== sketch.version) throw sketchConflict(sketch)
+  if (!upload.raster) throw createError({ status: 400, message: 'The save has no raster image.' })
+
+  const store = useObjectStore()
+  const keys = await ingestRaster(store, sketchObjectPrefix(id, save.saveId), upload.raster, SKETCH_SIZE)
+  const at = nowIso()
+  const version = save.baseVersion + 1
+  const shapes = JSON.stringify(save.shapes)
+  const saved = await db.transaction().execute(async (trx) => {
+    const updated = await trx.updateTable('sketches')
+      .set({
+        version,
+        schema_version: SHAPES_SCHEMA_VERSION,
+        shapes,
+        view_orientation: save.orientation,
+        view_flip: save.flip,
+        raster_key: keys.raster,
+        thumb_small_key: keys.small,
+        thumb_large_key: keys.large,
+        updated_at: at,
+      })
+      .where('id', '=', id)
+      .where('user_id', '=', user.id)
+      .where('version', '=', save.baseVersion)
+      .where('status', 'in', [...EDITABLE_SKETCH_STATUSES])
+      .executeTakeFirst()
+    if (Number(updated.numUpdatedRows) !== 1) return false
+    await trx.insertInto('sketch_revisions').values({
+      id: newId(),
+      sketch_id: id,
+      version,
+      schema_version: SHAPES_SCHEMA_VERSION,
+      shapes,
+      view_orientation: save.orientation,
+      view_flip: save.flip,
+      raster_key: keys.raster,
+      created_by: user.id,
+      created_at: at,
+      save_id: save.saveId,
+    }).execute()
+    return true
+  })
+  if (!saved) {
+    // Another save won the race between the check above and this update.
+    await discardRaster(store, keys)
+    const current = await db.selectFrom('sketches').select(['version', 'updated_at']).where('id', '=', id).executeTakeFirstOrThrow()
+    throw sketchConflict(current)
+  }
+  return { id, version, updatedAt: at, hasRaster: true }
+})

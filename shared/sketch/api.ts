@@ -1,0 +1,73 @@
+// What the sketch routes answer; the editor and the lists read these shapes.
+
+import type { DiskView } from '../lunar'
+import type { SketchShapes } from './schema'
+
+export type SketchStatus = 'draft' | 'submitted' | 'approved' | 'returned' | 'withdrawn'
+
+/** Only these may be drawn on; the review lifecycle moves a sketch out of them and back. */
+export const EDITABLE_SKETCH_STATUSES: readonly SketchStatus[] = ['draft', 'returned']
+
+export type InstrumentView = 'upright' | 'inverted' | 'mirrored'
+
+export interface SketchObservation {
+  id: string
+  /** ISO 8601 UTC. */
+  observedAt: string
+  timeZone: string
+  site: { name: string, latitude: number, longitude: number, elevation: number }
+  view: InstrumentView
+}
+
+export interface SketchDetail {
+  id: string
+  status: SketchStatus
+  version: number
+  /** The signed-in user owns the sketch and its status allows drawing. */
+  editable: boolean
+  owner: { name: string }
+  view: DiskView
+  shapes: SketchShapes
+  hasRaster: boolean
+  createdAt: string
+  updatedAt: string
+  observation: SketchObservation
+}
+
+export interface SketchSaved {
+  id: string
+  version: number
+  updatedAt: string
+  hasRaster: boolean
+}
+
+/** `data` of a 409: another save landed first. */
+export interface SketchConflict {
+  currentVersion: number
+  updatedAt: string
+}
+
+export interface SketchListItem {
+  id: string
+  status: SketchStatus
+  version: number
+  updatedAt: string
+  hasRaster: boolean
+  observation: { id: string, observedAt: string, timeZone: string, siteName: string, phaseName: string, illuminatedFraction: number }
+}
+
+export interface SketchRevisionItem {
+  version: number
+  createdAt: string
+  createdBy: string
+  hasRaster: boolean
+  view: DiskView
+}
+
+/** One line per sketch for the observation lists (server/utils/sketches.ts, sketchesForObservations). */
+export interface SketchSummary {
+  id: string
+  status: SketchStatus
+  updatedAt: string
+  hasRaster: boolean
+}
