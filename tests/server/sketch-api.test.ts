@@ -22,7 +22,7 @@ class Agent {
   async call(method: string, path: string, body?: unknown) {
     const response = await fetch(this.base + path, {
       method,
-      headers: { 'accept': 'application/json', 'cookie': this.cookie, ...(body === undefined ? {} : { 'content-type': 'application/json' }) },
+      headers: { accept: 'application/json', cookie: this.cookie, ...(body === undefined ? {} : { 'content-type': 'application/json' }) },
       body: body === undefined ? undefined : JSON.stringify(body),
     })
     const setCookie = response.headers.getSetCookie()[0]

@@ -69,6 +69,7 @@ describe('CSV export', () => {
       computedWith: 'test',
       altitude: null,
       azimuth: null,
+      sketches: [],
       latitude: 52.6,
       longitude: -1.7,
       elevation: 95,
