@@ -10,6 +10,7 @@ export interface NavItem {
 const ITEMS: NavItem[] = [
   { to: '/', label: 'Home' },
   { to: '/atlas', label: 'Atlas' },
+  { to: '/features', label: 'Features' },
   { to: '/tonight', label: 'Tonight', role: 'learner' },
   { to: '/observations', label: 'Observations', role: 'learner' },
   { to: '/sketches', label: 'Sketches', role: 'observer' },

@@ -199,6 +199,53 @@ export interface AtlasEntriesTable {
   published_at: Instant
 }
 
+export interface FeaturesTable {
+  id: string
+  name: string
+  description: ColumnType<string, string | undefined, string>
+  status: ColumnType<'proposed' | 'confirmed', 'proposed' | 'confirmed' | undefined, 'proposed' | 'confirmed'>
+  proposed_by: string | null
+  merged_into: string | null
+  /** Mean selenographic position of the pins, east-positive longitude; null until pinned. */
+  latitude: number | null
+  longitude: number | null
+  /** RMS angular distance of the pins from that mean. */
+  spread_deg: number | null
+  pin_count: ColumnType<number, number | undefined, number>
+  created_at: CreatedAt
+  updated_at: Instant
+}
+
+export interface FeatureNamesTable {
+  id: string
+  feature_id: string
+  name: string
+  /** Lower case, accents removed, punctuation folded to spaces: what searches match. */
+  name_key: string
+  kind: 'name' | 'alias'
+  created_at: CreatedAt
+}
+
+export interface FeatureNameTrigramsTable {
+  trigram: string
+  name_id: string
+}
+
+export interface FeatureTagsTable {
+  id: string
+  sketch_id: string
+  feature_id: string
+  user_id: string
+  /** Unit disk, x right and y up, in the sketch's view. */
+  disk_x: number
+  disk_y: number
+  view_orientation: 'north-up' | 'zenith-up'
+  view_flip: 'none' | 'inverted' | 'mirrored'
+  latitude: number
+  longitude: number
+  created_at: CreatedAt
+}
+
 export interface Database {
   users: UsersTable
   sites: SitesTable
@@ -213,6 +260,10 @@ export interface Database {
   sketch_revisions: SketchRevisionsTable
   sketch_reviews: SketchReviewsTable
   atlas_entries: AtlasEntriesTable
+  features: FeaturesTable
+  feature_names: FeatureNamesTable
+  feature_name_trigrams: FeatureNameTrigramsTable
+  feature_tags: FeatureTagsTable
 }
 
 export type User = Selectable<UsersTable>
@@ -232,3 +283,5 @@ export type NewSketch = Insertable<SketchesTable>
 export type SketchRevision = Selectable<SketchRevisionsTable>
 export type SketchReview = Selectable<SketchReviewsTable>
 export type AtlasEntry = Selectable<AtlasEntriesTable>
+export type Feature = Selectable<FeaturesTable>
+export type FeatureTag = Selectable<FeatureTagsTable>

@@ -37,6 +37,13 @@ export function atlasQuery(db: Kysely<Database>, q: AtlasQuery) {
     if (hi !== undefined) query = query.where('colongitude_deg', '<=', hi)
   }
   if (q.observer) query = query.where('observer_id', '=', q.observer)
+  if (q.feature) {
+    const feature = q.feature
+    query = query.where(eb => eb.exists(eb.selectFrom('feature_tags')
+      .select('feature_tags.id')
+      .whereRef('feature_tags.sketch_id', '=', 'atlas_entries.sketch_id')
+      .where('feature_tags.feature_id', '=', feature)))
+  }
   if (q.instrument) query = query.where('instrument_kind', '=', q.instrument)
   if (q.from) query = query.where('observed_at', '>=', `${q.from}T00:00:00.000Z`)
   if (q.to) query = query.where('observed_at', '<=', `${q.to}T23:59:59.999Z`)

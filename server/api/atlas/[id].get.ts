@@ -42,5 +42,6 @@ export default defineEventHandler(async (event) => {
     transparency: observation.transparency,
     notes: observation.notes,
     sameLight: sameLight.map(atlasCard),
+    pins: (await pinsOf(id)).map(p => ({ id: p.id, x: p.x, y: p.y, feature: p.feature })),
   }
 })

@@ -25,5 +25,6 @@ export default defineEventHandler(async (event) => {
     observer: observer.name,
     observation: dto!,
     history: await entryHistory(db, sketch.id),
+    pins: await pinsOf(sketch.id),
   }
 })
