@@ -29,12 +29,7 @@ async function upload(client: Client, file: Buffer, name: string, fields: Record
   const form = new FormData()
   for (const [k, v] of Object.entries(fields)) form.append(k, v)
   form.append('file', new Blob([new Uint8Array(file)]), name)
-  const cookie = (client as unknown as { cookies: Map<string, string> }).cookies
-  const response = await fetch(`${app.url}/api/photos`, {
-    method: 'POST',
-    body: form,
-    headers: { cookie: [...cookie].map(([k, v]) => `${k}=${v}`).join('; ') },
-  })
+  const response = await fetch(`${app.url}/api/photos`, { method: 'POST', body: form, headers: { cookie: client.cookieHeader() } })
   return { status: response.status, body: await response.json().catch(() => null) }
 }
 
@@ -166,7 +161,7 @@ describe('photos', () => {
     expect(answer.body.observationId).toBe(demoNight.id)
 
     const image = await fetch(`${app.url}/api/photos/${answer.body.id}/image?size=full`, {
-      headers: { cookie: [...(owner as unknown as { cookies: Map<string, string> }).cookies].map(([k, v]) => `${k}=${v}`).join('; ') },
+      headers: { cookie: owner.cookieHeader() },
     })
     expect(image.headers.get('content-type')).toBe('image/webp')
     expect((await sharp(Buffer.from(await image.arrayBuffer())).metadata()).exif).toBeUndefined()

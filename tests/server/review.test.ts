@@ -1,11 +1,9 @@
 // The entry lifecycle and the public atlas over HTTP: every transition allowed and refused by role and
 // state, the queue, concurrent decisions, the decision e-mails, and what the atlas never reveals.
 
-import sharp from 'sharp'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { SKETCH_SIZE } from '../../shared/sketch/frame'
-import { emptyShapes } from '../../shared/sketch/schema'
 import { Client, DEMO, caughtMail, startApp, type RunningApp } from '../support/app'
+import { savedSketch as savedSketchOf } from '../support/sketches'
 
 let app: RunningApp
 let observer: Client
@@ -15,26 +13,7 @@ let learner: Client
 let otherObserver: Client
 let observations: { id: string, localDate: string }[]
 
-function cookieOf(client: Client): string {
-  return [...(client as unknown as { cookies: Map<string, string> }).cookies].map(([k, v]) => `${k}=${v}`).join('; ')
-}
-
-/** A saved sketch of one of the observer's observations (a raster is needed to submit). */
-async function savedSketch(observationId: string): Promise<string> {
-  const created = await observer.post('/api/sketches', { observationId })
-  expect(created.status).toBe(201)
-  const raster = await sharp({ create: { width: SKETCH_SIZE, height: SKETCH_SIZE, channels: 4, background: { r: 0, g: 0, b: 0, alpha: 0 } } }).png().toBuffer()
-  const form = new FormData()
-  form.set('baseVersion', String(created.body.version ?? 1))
-  form.set('saveId', crypto.randomUUID())
-  form.set('orientation', 'zenith-up')
-  form.set('flip', 'none')
-  form.set('shapes', JSON.stringify(emptyShapes()))
-  form.set('raster', new Blob([new Uint8Array(raster)], { type: 'image/png' }), 'sketch.png')
-  const saved = await fetch(`${app.url}/api/sketches/${created.body.id}`, { method: 'PUT', headers: { cookie: cookieOf(observer), accept: 'application/json' }, body: form })
-  expect(saved.status).toBe(200)
-  return created.body.id
-}
+const savedSketch = (observationId: string) => savedSketchOf(app.url, observer, observationId)
 
 const decide = (client: Client, id: string, decision: string, comment = '') => client.post(`/api/entries/${id}/decision`, { decision, comment })
 
@@ -115,16 +94,7 @@ describe('the entry lifecycle', () => {
       instrument: { kind: 'naked-eye' },
       view: 'upright',
     })
-    const created = await moderator.post('/api/sketches', { observationId: ownObs.body.id })
-    const raster = await sharp({ create: { width: SKETCH_SIZE, height: SKETCH_SIZE, channels: 4, background: '#0000' } }).png().toBuffer()
-    const form = new FormData()
-    form.set('baseVersion', String(created.body.version ?? 1))
-    form.set('saveId', crypto.randomUUID())
-    form.set('orientation', 'zenith-up')
-    form.set('flip', 'none')
-    form.set('shapes', JSON.stringify(emptyShapes()))
-    form.set('raster', new Blob([new Uint8Array(raster)], { type: 'image/png' }), 'sketch.png')
-    await fetch(`${app.url}/api/sketches/${created.body.id}`, { method: 'PUT', headers: { cookie: cookieOf(moderator), accept: 'application/json' }, body: form })
+    const created = { body: { id: await savedSketchOf(app.url, moderator, ownObs.body.id) } }
     expect((await moderator.post(`/api/entries/${created.body.id}/submit`)).status).toBe(200)
     const own = await decide(moderator, created.body.id, 'approve')
     expect(own.status).toBe(403)
