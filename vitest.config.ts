@@ -1,3 +1,4 @@
+import { fileURLToPath } from 'node:url'
 import { defineConfig } from 'vitest/config'
 
 // Three projects: fast unit tests of the computation and schemas, server tests
@@ -5,11 +6,16 @@ import { defineConfig } from 'vitest/config'
 // `npm test` builds the app before vitest runs, so the server and browser
 // projects can start `.output/server/index.mjs` directly.
 export default defineConfig({
+  resolve: {
+    // The same alias Nuxt gives code shared by the app and the server.
+    alias: { '#shared': fileURLToPath(new URL('./shared', import.meta.url)) },
+  },
   test: {
     // The JSON report gives .ci/run its closing line of totals.
     reporters: ['default', ['json', { outputFile: '.data/test-results.json' }]],
     projects: [
       {
+        extends: true,
         test: {
           name: 'unit',
           environment: 'node',
@@ -17,6 +23,7 @@ export default defineConfig({
         },
       },
       {
+        extends: true,
         test: {
           name: 'server',
           environment: 'node',
@@ -27,6 +34,7 @@ export default defineConfig({
         },
       },
       {
+        extends: true,
         test: {
           name: 'e2e',
           environment: 'node',

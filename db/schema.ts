@@ -1,6 +1,9 @@
 import type { ColumnType, Insertable, Selectable, Updateable } from 'kysely'
 import type { Role } from '../shared/roles'
 import type { InstrumentKind, InstrumentView } from '../shared/observing/instrument'
+import type { SketchStatus } from '../shared/review/lifecycle'
+
+export type { SketchStatus }
 
 // Instants are ISO 8601 UTC strings in every dialect, so the same queries run on
 // SQLite and PostgreSQL and sort correctly as text.
@@ -134,8 +137,6 @@ export interface PhotosTable {
   created_at: CreatedAt
 }
 
-export type SketchStatus = 'draft' | 'submitted' | 'approved' | 'returned' | 'withdrawn'
-
 export interface SketchesTable {
   id: string
   observation_id: string
@@ -151,6 +152,7 @@ export interface SketchesTable {
   raster_key: string | null
   thumb_small_key: string | null
   thumb_large_key: string | null
+  submitted_at: Instant | null
   created_at: CreatedAt
   updated_at: Instant
 }
@@ -170,6 +172,80 @@ export interface SketchRevisionsTable {
   save_id: ColumnType<string | null, string | null | undefined, never>
 }
 
+export interface SketchReviewsTable {
+  id: string
+  sketch_id: string
+  actor_id: string
+  from_status: SketchStatus
+  to_status: SketchStatus
+  comment: string
+  created_at: CreatedAt
+}
+
+export interface AtlasEntriesTable {
+  sketch_id: string
+  observer_id: string
+  observer_name: string
+  observed_at: Instant
+  age_days: number
+  phase_name: string
+  colongitude_deg: number
+  illuminated_fraction: number
+  instrument_kind: InstrumentKind
+  instrument_label: string
+  /** Rounded to 0.1°: the public never sees an observer's precise place. */
+  site_latitude: number
+  site_longitude: number
+  published_at: Instant
+}
+
+export interface FeaturesTable {
+  id: string
+  name: string
+  description: ColumnType<string, string | undefined, string>
+  status: ColumnType<'proposed' | 'confirmed', 'proposed' | 'confirmed' | undefined, 'proposed' | 'confirmed'>
+  proposed_by: string | null
+  merged_into: string | null
+  /** Mean selenographic position of the pins, east-positive longitude; null until pinned. */
+  latitude: number | null
+  longitude: number | null
+  /** RMS angular distance of the pins from that mean. */
+  spread_deg: number | null
+  pin_count: ColumnType<number, number | undefined, number>
+  created_at: CreatedAt
+  updated_at: Instant
+}
+
+export interface FeatureNamesTable {
+  id: string
+  feature_id: string
+  name: string
+  /** Lower case, accents removed, punctuation folded to spaces: what searches match. */
+  name_key: string
+  kind: 'name' | 'alias'
+  created_at: CreatedAt
+}
+
+export interface FeatureNameTrigramsTable {
+  trigram: string
+  name_id: string
+}
+
+export interface FeatureTagsTable {
+  id: string
+  sketch_id: string
+  feature_id: string
+  user_id: string
+  /** Unit disk, x right and y up, in the sketch's view. */
+  disk_x: number
+  disk_y: number
+  view_orientation: 'north-up' | 'zenith-up'
+  view_flip: 'none' | 'inverted' | 'mirrored'
+  latitude: number
+  longitude: number
+  created_at: CreatedAt
+}
+
 export interface Database {
   users: UsersTable
   sites: SitesTable
@@ -182,6 +258,12 @@ export interface Database {
   photos: PhotosTable
   sketches: SketchesTable
   sketch_revisions: SketchRevisionsTable
+  sketch_reviews: SketchReviewsTable
+  atlas_entries: AtlasEntriesTable
+  features: FeaturesTable
+  feature_names: FeatureNamesTable
+  feature_name_trigrams: FeatureNameTrigramsTable
+  feature_tags: FeatureTagsTable
 }
 
 export type User = Selectable<UsersTable>
@@ -199,3 +281,7 @@ export type Photo = Selectable<PhotosTable>
 export type Sketch = Selectable<SketchesTable>
 export type NewSketch = Insertable<SketchesTable>
 export type SketchRevision = Selectable<SketchRevisionsTable>
+export type SketchReview = Selectable<SketchReviewsTable>
+export type AtlasEntry = Selectable<AtlasEntriesTable>
+export type Feature = Selectable<FeaturesTable>
+export type FeatureTag = Selectable<FeatureTagsTable>

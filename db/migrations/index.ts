@@ -3,6 +3,8 @@ import * as foundation from './2026-12-02-01-foundation'
 import * as observations from './2026-12-02-02-observations'
 import * as sketches from './2026-12-02-03-sketches'
 import * as sketchSaveId from './2026-12-02-05-sketch-save-id'
+import * as review from './2026-12-02-06-review'
+import * as features from './2026-12-02-07-features'
 
 // Migrations are imported statically so they survive the server bundle.
 // Add each new migration here under its file name; names sort by date.
@@ -11,6 +13,8 @@ export const migrations: Record<string, Migration> = {
   '2026-12-02-02-observations': observations,
   '2026-12-02-03-sketches': sketches,
   '2026-12-02-05-sketch-save-id': sketchSaveId,
+  '2026-12-02-06-review': review,
+  '2026-12-02-07-features': features,
 }
 
 export const migrationProvider: MigrationProvider = {

@@ -29,3 +29,18 @@ export function passwordChangedMail(name: string) {
     text: `Hello ${name},\n\nThe password of your Shadowline account was just changed. If this was not you, reset it at once and tell your group's moderator.${signature}`,
   }
 }
+
+const DECISION_WORDS = {
+  approve: { subject: 'Your sketch is in the atlas', lead: 'A moderator approved your sketch; it is now in the shared atlas.' },
+  return: { subject: 'Your sketch was returned with comments', lead: 'A moderator returned your sketch with comments. Improve it and submit it again when you are ready.' },
+  withdraw: { subject: 'Your sketch was withdrawn from the atlas', lead: 'A moderator withdrew your sketch from the atlas.' },
+} as const
+
+export function decisionMail(name: string, decision: keyof typeof DECISION_WORDS, observedOn: string, comment: string, link: string) {
+  const words = DECISION_WORDS[decision]
+  const said = comment.trim() ? `\n\nThe moderator wrote:\n\n${comment.trim()}` : ''
+  return {
+    subject: words.subject,
+    text: `Hello ${name},\n\n${words.lead} (observation of ${observedOn})${said}\n\nSee your entries: ${link}${signature}`,
+  }
+}

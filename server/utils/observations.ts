@@ -98,7 +98,7 @@ function measurementDto(m: Measurement): DerivedMeasurement {
   }
 }
 
-export function observationDto(row: Observation, site: Pick<Site, 'id' | 'name'>, measurements: Measurement[]): ObservationView {
+export function observationDto(row: Observation, site: Pick<Site, 'id' | 'name'>, measurements: Measurement[], sketches: ObservationView['sketches'] = []): ObservationView {
   const instrument = {
     kind: row.instrument_kind,
     magnification: row.magnification,
@@ -127,6 +127,7 @@ export function observationDto(row: Observation, site: Pick<Site, 'id' | 'name'>
     computedWith: row.computed_with,
     altitude: altitude ? measurementDto(altitude) : null,
     azimuth: azimuth ? measurementDto(azimuth) : null,
+    sketches,
   }
 }
 
@@ -141,10 +142,12 @@ export async function loadObservationDtos(db: Kysely<Database>, rows: Observatio
     .where('observation_id', 'in', rows.map(r => r.id))
     .execute()
   const siteById = new Map(sites.map(s => [s.id, s]))
+  const sketches = await sketchesForObservations(db, rows.map(r => r.id))
   return rows.map(row => observationDto(
     row,
     siteById.get(row.site_id) ?? { id: row.site_id, name: '' },
     measurements.filter(m => m.observation_id === row.id),
+    sketches.get(row.id) ?? [],
   ))
 }
 

@@ -85,6 +85,6 @@ export function trendNotes(nights: PredictedNight[], clockTime: string): string[
   else {
     notes.push(`Its altitude at that time goes from ${Math.round(first.altitudeDeg)}° to ${Math.round(last.altitudeDeg)}°.`)
   }
-  notes.push('A compass read the same way every night may be off by a steady few degrees; the offset estimate below removes that, leaving the night-to-night change.')
+  notes.push('A compass read the same way every night may be off by a steady few degrees; the compass offset estimate removes that, leaving the night-to-night change.')
   return notes
 }

@@ -1,6 +1,7 @@
 import type { DerivedMeasurement } from '../observing/measurements'
 import type { StoredCircumstances } from '../observing/night'
 import type { InstrumentFields, InstrumentView } from '../observing/instrument'
+import type { SketchSummary } from '../sketch/api'
 
 /** One observation as the owner's pages receive it. */
 export interface ObservationView {
@@ -21,4 +22,5 @@ export interface ObservationView {
   computedWith: string
   altitude: DerivedMeasurement | null
   azimuth: DerivedMeasurement | null
+  sketches: SketchSummary[]
 }

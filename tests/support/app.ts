@@ -105,6 +105,10 @@ export class Client {
     return { status: response.status, body: parsed, headers: response.headers }
   }
 
+  cookieHeader(): string {
+    return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ')
+  }
+
   get(path: string) {
     return this.request('GET', path)
   }

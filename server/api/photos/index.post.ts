@@ -1,0 +1,65 @@
+import { PhotoUploadFields } from '#shared/schemas/photo'
+import { zonedInstant } from '#shared/observing/clock'
+
+const validFields = parseWith(PhotoUploadFields)
+
+export default defineEventHandler(async (event) => {
+  const user = await requireRole(event, 'learner')
+  // Refuse an oversized upload before reading it.
+  const declared = Number(getRequestHeader(event, 'content-length') ?? 0)
+  if (declared > PHOTO_MAX_BYTES + 64 * 1024) {
+    throw createError({ status: 413, message: `Photos are limited to ${PHOTO_MAX_BYTES / 1024 / 1024} MB.` })
+  }
+  const parts = await readMultipartFormData(event)
+  const file = parts?.find(p => p.name === 'file' && p.filename)
+  if (!file) throw createError({ status: 400, message: 'file: Choose a photo to upload.' })
+  const text = Object.fromEntries((parts ?? []).filter(p => !p.filename && p.name).map(p => [p.name!, p.data.toString('utf8')]))
+  const fields = validFields(text)
+  const site = await ownSite(user.id, fields.siteId).catch(() => {
+    throw createError({ status: 400, message: 'siteId: Choose one of your sites.' })
+  })
+
+  let processed
+  try {
+    processed = await processPhoto(file.data, site.time_zone)
+  }
+  catch (error) {
+    if (error instanceof PhotoRejected) throw createError({ status: error.status, message: error.message })
+    throw error
+  }
+  let takenAt = processed.exifTakenAt
+  let source: 'exif' | 'observer' | 'upload' = takenAt ? 'exif' : 'upload'
+  if (fields.localDate && fields.localTime) {
+    try {
+      takenAt = zonedInstant(fields.localDate, fields.localTime, site.time_zone)
+    }
+    catch (error) {
+      throw createError({ status: 400, message: `localTime: ${(error as Error).message}` })
+    }
+    source = 'observer'
+  }
+  takenAt ??= new Date()
+
+  const id = newId()
+  const store = useObjectStore()
+  const imageKey = `photos/${user.id}/${id}/full.webp`
+  const thumbKey = `photos/${user.id}/${id}/thumb.webp`
+  await store.put(imageKey, processed.full, 'image/webp')
+  await store.put(thumbKey, processed.thumb, 'image/webp')
+  const observationId = await observationForPhoto(user.id, site, takenAt)
+  const row = {
+    id,
+    user_id: user.id,
+    observation_id: observationId,
+    taken_at: takenAt.toISOString(),
+    taken_at_source: source,
+    width: processed.width,
+    height: processed.height,
+    image_key: imageKey,
+    thumb_key: thumbKey,
+    created_at: nowIso(),
+  }
+  await useDb().insertInto('photos').values(row).execute()
+  setResponseStatus(event, 201)
+  return photoView(row, site)
+})

@@ -1,0 +1,30 @@
+import { IdParams } from '#shared/schemas/auth'
+
+const validParams = parseWith(IdParams)
+
+// What a moderator needs to decide: the entry, its observation and measurements, and earlier reviews.
+export default defineEventHandler(async (event) => {
+  const user = await requireRole(event, 'moderator')
+  const { id } = await getValidatedRouterParams(event, validParams)
+  const sketch = await visibleEntry(user, id)
+  const db = useDb()
+  const observation = await db.selectFrom('observations').selectAll().where('id', '=', sketch.observation_id).executeTakeFirstOrThrow()
+  const [dto] = await loadObservationDtos(db, [observation])
+  const observer = await db.selectFrom('users').select('name').where('id', '=', sketch.user_id).executeTakeFirstOrThrow()
+  return {
+    sketch: {
+      id: sketch.id,
+      status: sketch.status,
+      version: sketch.version,
+      orientation: sketch.view_orientation,
+      flip: sketch.view_flip,
+      hasRaster: sketch.raster_key != null,
+      submittedAt: sketch.submitted_at,
+      ownEntry: sketch.user_id === user.id,
+    },
+    observer: observer.name,
+    observation: dto!,
+    history: await entryHistory(db, sketch.id),
+    pins: await pinsOf(sketch.id),
+  }
+})

@@ -1,0 +1,46 @@
+import { z } from 'zod'
+import { nameProblem } from '../features/names'
+
+export const FeatureName = z.string().superRefine((name, ctx) => {
+  const problem = nameProblem(name)
+  if (problem) ctx.addIssue({ code: 'custom', message: problem })
+}).transform(name => name.trim())
+
+const Description = z.string().trim().max(1000, 'Keep the description under 1000 characters.')
+
+export const FeatureCreateBody = z.object({
+  name: FeatureName,
+  description: Description.default(''),
+})
+
+export const FeaturePatchBody = z.object({
+  name: FeatureName.optional(),
+  description: Description.optional(),
+  status: z.enum(['proposed', 'confirmed']).optional(),
+}).refine(b => b.name !== undefined || b.description !== undefined || b.status !== undefined, 'Nothing to change.')
+
+export const MergeBody = z.object({ into: z.uuid('Choose the feature to merge into.') })
+
+export const FeatureListQuery = z.object({
+  q: z.string().max(80).optional(),
+  status: z.enum(['proposed', 'confirmed']).optional(),
+  page: z.coerce.number().int().min(1).max(10_000).default(1),
+  perPage: z.coerce.number().int().min(1).max(100).default(30),
+})
+
+export const TerminatorQuery = z.object({
+  colongitude: z.coerce.number().min(0).max(360),
+  subSolarLat: z.coerce.number().min(-2).max(2).default(0),
+  within: z.coerce.number().min(1).max(30).default(10),
+})
+
+// A pin is placed in unit-disk coordinates of the sketch's view; a little slack past 1 is refused with a
+// clear message by the projection rather than by the schema.
+export const TagBody = z.object({
+  x: z.number().min(-1.5).max(1.5),
+  y: z.number().min(-1.5).max(1.5),
+  featureId: z.uuid().optional(),
+  name: FeatureName.optional(),
+}).refine(b => (b.featureId === undefined) !== (b.name === undefined), 'Pick an existing feature or give a new name, not both.')
+
+export const TagParams = z.object({ id: z.uuid('Unknown id.'), tagId: z.uuid('Unknown id.') })

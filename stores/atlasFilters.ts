@@ -1,0 +1,57 @@
+import { defineStore } from 'pinia'
+import type { LocationQuery } from 'vue-router'
+
+export interface AtlasFilterState {
+  phase: string
+  ageMin: string
+  ageMax: string
+  colongitudeMin: string
+  colongitudeMax: string
+  feature: string
+  observer: string
+  instrument: string
+  from: string
+  to: string
+  page: number
+}
+
+const EMPTY: AtlasFilterState = {
+  phase: '', ageMin: '', ageMax: '', colongitudeMin: '', colongitudeMax: '',
+  feature: '', observer: '', instrument: '', from: '', to: '', page: 1,
+}
+
+/**
+ * The atlas filters. The URL is the source of truth, so a view can be shared and the back button returns
+ * to the same page of results; the store mirrors it for the filter controls.
+ */
+export const useAtlasFilters = defineStore('atlas-filters', () => {
+  const state = reactive<AtlasFilterState>({ ...EMPTY })
+
+  function fromQuery(query: LocationQuery) {
+    for (const key of Object.keys(EMPTY) as (keyof AtlasFilterState)[]) {
+      const value = query[key]
+      if (key === 'page') state.page = Math.max(1, Number(value) || 1)
+      else state[key] = typeof value === 'string' ? value : ''
+    }
+  }
+
+  /** The query for the URL and the API: empty filters left out. */
+  const query = computed(() => {
+    const out: Record<string, string> = {}
+    for (const [key, value] of Object.entries(state)) {
+      if (key === 'page') {
+        if (value !== 1) out.page = String(value)
+      }
+      else if (value !== '') out[key] = String(value)
+    }
+    return out
+  })
+
+  const active = computed(() => Object.keys(query.value).filter(k => k !== 'page').length)
+
+  function clear() {
+    Object.assign(state, EMPTY)
+  }
+
+  return { state, query, active, fromQuery, clear }
+})
