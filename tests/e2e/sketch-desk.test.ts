@@ -237,13 +237,16 @@ describe('touch', () => {
 })
 
 describe('never losing a stroke', () => {
-  it('keeps strokes drawn offline on the device, restores them on reopening and saves them once back online', async () => {
+  it('keeps strokes drawn offline, still has them after an offline reload, and saves them once back online', async () => {
     const context = await signedIn()
     const id = await newSketch(context)
+    const unvisitedId = await newSketch(context)
     let page = await openDesk(context, id)
     await drawWithMouse(page, wave(900))
     await page.getByRole('button', { name: 'Save now' }).click()
     await expect.poll(() => syncState(page), { timeout: 20_000 }).toBe('saved')
+    // The page's service worker has kept the page and its assets for an offline visit.
+    await expect.poll(() => page.evaluate(async () => Boolean(navigator.serviceWorker.controller && await caches.match(location.pathname))), { timeout: 20_000 }).toBe(true)
 
     await context.setOffline(true)
     await drawWithMouse(page, wave(1100))
@@ -252,18 +255,36 @@ describe('never losing a stroke', () => {
     await expect.poll(() => syncState(page), { timeout: 10_000 }).toBe('offline')
     await page.getByText('Offline · kept on this device').waitFor()
     await page.screenshot({ path: artifact('sketch-desk-offline.png') })
-    // The tab goes away (a crash, a flat battery). Without a network the page itself cannot be fetched again,
-    // so it is reopened once the connection is back; the strokes waited in IndexedDB.
-    await page.close()
-    await context.setOffline(false)
+
+    // Reloaded with no network: the page comes from the worker's cache, the strokes from IndexedDB. (A sketch
+    // page never visited has nothing cached and cannot open: the network really is gone.)
+    const unvisited = await context.newPage()
+    expect(await unvisited.goto(`${app.url}/sketches/${unvisitedId}`).then(() => 'opened', () => 'failed')).toBe('failed')
+    await unvisited.close()
+    await page.reload()
+    await page.getByTestId('sketch-canvas').waitFor()
+    expect(await strokeCount(page)).toBe(3)
+    expect(await syncState(page)).toBe('offline')
     expect((await serverCopy(context, id)).shapes.strokes).toHaveLength(1)
 
-    page = await openDesk(context, id)
-    expect(await strokeCount(page)).toBe(3)
+    // Back online, the autosave sends them.
+    await context.setOffline(false)
     await expect.poll(() => syncState(page), { timeout: 20_000 }).toBe('saved')
-    const saved = await serverCopy(context, id)
+    let saved = await serverCopy(context, id)
     expect(saved.version).toBe(3)
     expect(saved.shapes.strokes).toHaveLength(3)
+
+    // A tab that goes away (a crash, a flat battery) before it could save loses nothing either.
+    await drawWithMouse(page, wave(1350))
+    await context.setOffline(true)
+    await expect.poll(() => syncState(page), { timeout: 10_000 }).toBe('offline')
+    await page.close()
+    await context.setOffline(false)
+    page = await openDesk(context, id)
+    expect(await strokeCount(page)).toBe(4)
+    await expect.poll(() => syncState(page), { timeout: 20_000 }).toBe('saved')
+    saved = await serverCopy(context, id)
+    expect(saved.shapes.strokes).toHaveLength(4)
     await context.close()
   })
 

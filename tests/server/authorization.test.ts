@@ -55,6 +55,7 @@ const ROUTES: Record<string, Role | null> = {
   'GET /api/admin/users': 'admin',
   'PATCH /api/admin/users/[id]': 'admin',
   'GET /api/admin/mail': 'admin',
+  'GET /api/sketches/offline-worker': null,
   'GET /api/sketches': 'observer',
   'POST /api/sketches': 'observer',
   'GET /api/sketches/[id]': 'observer',
