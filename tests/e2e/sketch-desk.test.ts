@@ -148,6 +148,10 @@ describe('drawing, saving and reloading', () => {
     expect(await strokeCount(page)).toBe(2)
     await expect.poll(async () => (await pixel(page, 1, ...wave(800)[8]!))[3]).toBeGreaterThan(100)
     await page.screenshot({ path: artifact('sketch-desk-day.png') })
+    // A 10-inch tablet held upright: tools above the canvas, details below it.
+    await page.setViewportSize({ width: 800, height: 1280 })
+    await expect.poll(async () => (await pixel(page, 1, ...wave(800)[8]!))[3]).toBeGreaterThan(100)
+    await page.screenshot({ path: artifact('sketch-desk-portrait.png') })
     await page.close()
   })
 
