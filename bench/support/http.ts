@@ -63,19 +63,22 @@ export async function measure(url: string, paths: string[], connections: number,
   const times: number[] = []
   let next = 0
   const started = Date.now()
+  let finished: (result: autocannon.Result) => void = () => undefined
+  let failed: (error: Error) => void = () => undefined
+  const done = new Promise<autocannon.Result>((resolve, reject) => {
+    finished = resolve
+    failed = reject
+  })
   const instance = autocannon({
     url,
     connections,
     amount,
-    requests: [{ setupRequest: (request: Record<string, unknown>) => ({ ...request, path: paths[next++ % paths.length] }) }],
-  })
-  instance.on('response', (_client: unknown, _status: number, _bytes: number, responseTime: number) => {
+    requests: [{ setupRequest: request => ({ ...request, path: paths[next++ % paths.length]! }) }],
+  }, (error, result) => (error ? failed(error) : finished(result)))
+  instance.on('response', (_client, _status, _bytes, responseTime) => {
     times.push(responseTime)
   })
-  const result = await new Promise<{ errors: number, non2xx: number }>((done, fail) => {
-    instance.on('done', done)
-    instance.on('error', fail)
-  })
+  const result = await done
   const elapsed = (Date.now() - started) / 1000
   times.sort((a, b) => a - b)
   return {
