@@ -45,7 +45,7 @@ class Agent {
   async save(id: string, fields: Record<string, string>, raster: Uint8Array | null, contentType = 'image/png') {
     const form = new FormData()
     for (const [name, value] of Object.entries(fields)) form.set(name, value)
-    if (raster) form.set('raster', new Blob([raster], { type: contentType }), 'sketch.png')
+    if (raster) form.set('raster', new Blob([new Uint8Array(raster)], { type: contentType }), 'sketch.png')
     const response = await fetch(`${this.base}/api/sketches/${id}`, { method: 'PUT', headers: { cookie: this.cookie, accept: 'application/json' }, body: form })
     return { status: response.status, body: await response.json().catch(() => null) as any }
   }
