@@ -226,6 +226,11 @@ export interface FeatureNamesTable {
   created_at: CreatedAt
 }
 
+export interface FeatureNameWordsTable {
+  word: string
+  name_id: string
+}
+
 export interface FeatureNameTrigramsTable {
   trigram: string
   name_id: string
@@ -262,6 +267,7 @@ export interface Database {
   atlas_entries: AtlasEntriesTable
   features: FeaturesTable
   feature_names: FeatureNamesTable
+  feature_name_words: FeatureNameWordsTable
   feature_name_trigrams: FeatureNameTrigramsTable
   feature_tags: FeatureTagsTable
 }

@@ -33,6 +33,14 @@ export async function up(db: Kysely<any>): Promise<void> {
   await db.schema.createIndex('feature_names_feature_idx').on('feature_names').column('feature_id').execute()
   await db.schema.createIndex('feature_names_key_idx').on('feature_names').column('name_key').execute()
 
+  // Each word of each name, for fast prefix search as the user types (an index range scan).
+  await db.schema
+    .createTable('feature_name_words')
+    .addColumn('word', 'text', c => c.notNull())
+    .addColumn('name_id', 'text', c => c.notNull().references('feature_names.id').onDelete('cascade'))
+    .addPrimaryKeyConstraint('feature_name_words_pk', ['word', 'name_id'])
+    .execute()
+
   // A trigram index in plain tables: forgiving search that runs the same on SQLite and PostgreSQL.
   await db.schema
     .createTable('feature_name_trigrams')
@@ -60,7 +68,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 }
 
 export async function down(db: Kysely<any>): Promise<void> {
-  for (const table of ['feature_tags', 'feature_name_trigrams', 'feature_names', 'features']) {
+  for (const table of ['feature_tags', 'feature_name_trigrams', 'feature_name_words', 'feature_names', 'features']) {
     await db.schema.dropTable(table).execute()
   }
 }

@@ -39,13 +39,28 @@ export function atlasQuery(db: Kysely<Database>, q: AtlasQuery) {
   if (q.observer) query = query.where('observer_id', '=', q.observer)
   if (q.feature) {
     const feature = q.feature
-    query = query.where(eb => eb.exists(eb.selectFrom('feature_tags')
-      .select('feature_tags.id')
-      .whereRef('feature_tags.sketch_id', '=', 'atlas_entries.sketch_id')
-      .where('feature_tags.feature_id', '=', feature)))
+    // Driven from the feature's pins (index on feature_id, sketch_id), not by probing every entry.
+    query = query.where('sketch_id', 'in', eb => eb.selectFrom('feature_tags')
+      .select('feature_tags.sketch_id')
+      .where('feature_tags.feature_id', '=', feature))
   }
   if (q.instrument) query = query.where('instrument_kind', '=', q.instrument)
   if (q.from) query = query.where('observed_at', '>=', `${q.from}T00:00:00.000Z`)
   if (q.to) query = query.where('observed_at', '<=', `${q.to}T23:59:59.999Z`)
   return query
+}
+
+/**
+ * One page of the atlas as the route serves it. A lighting filter lists by colongitude (the index order,
+ * and the order that matters when comparing light); otherwise the newest observations come first. One row
+ * past the page says whether more follow, which spares counting a large filter on every request.
+ */
+export function atlasPage(db: Kysely<Database>, q: AtlasQuery) {
+  const byLight = q.colongitudeMin !== undefined || q.colongitudeMax !== undefined
+  return atlasQuery(db, q)
+    .selectAll()
+    .orderBy(byLight ? 'colongitude_deg' : 'observed_at', byLight ? 'asc' : 'desc')
+    .orderBy('sketch_id')
+    .limit(q.perPage + 1)
+    .offset((q.page - 1) * q.perPage)
 }

@@ -14,6 +14,8 @@ export async function addName(db: Db, featureId: string, name: string, kind: 'na
   await db.insertInto('feature_names').values({ id, feature_id: featureId, name: name.trim(), name_key: key, kind, created_at: new Date().toISOString() }).execute()
   const grams = trigrams(key)
   if (grams.length) await db.insertInto('feature_name_trigrams').values(grams.map(trigram => ({ trigram, name_id: id }))).execute()
+  const words = [...new Set(key.split(' ').filter(Boolean))]
+  if (words.length) await db.insertInto('feature_name_words').values(words.map(word => ({ word, name_id: id }))).execute()
 }
 
 /** The live feature that already answers to this name, if any. */
@@ -61,36 +63,83 @@ export interface FeatureMatch {
   score: number
 }
 
+const PREFIX_CANDIDATES = 80
+const FUZZY_CANDIDATES = 200
+const FUZZY_BELOW = 5
+
+function namesQuery(db: Db) {
+  return db.selectFrom('feature_names')
+    .innerJoin('features', 'features.id', 'feature_names.feature_id')
+    .select(['feature_names.id as nameId', 'feature_names.name as matchedName', 'feature_names.name_key', 'feature_names.kind',
+      'features.id', 'features.name', 'features.status', 'features.latitude', 'features.longitude', 'features.pin_count'])
+    .where('features.merged_into', 'is', null)
+}
+
+/** The first string after every string that starts with `prefix`: the bound of an index range scan. */
+export function prefixEnd(prefix: string): string {
+  return prefix.slice(0, -1) + String.fromCodePoint(prefix.codePointAt(prefix.length - 1)! + 1)
+}
+
+/** Scores a name against the query: every query word a word prefix, else trigram likeness. */
+function scoreName(queryWords: string[], queryGrams: string[], nameKeyText: string): number {
+  const words = nameKeyText.split(' ')
+  const prefixes = queryWords.filter(q => words.some(w => w.startsWith(q))).length
+  if (prefixes === queryWords.length) return 2 + (nameKeyText.startsWith(queryWords.join(' ')) ? 1 : 0) - nameKeyText.length / 1000
+  const grams = trigrams(nameKeyText)
+  const shared = queryGrams.filter(g => grams.includes(g)).length
+  return similarity(queryGrams, grams, shared)
+}
+
 /**
- * Forgiving name search: candidates share trigrams with the folded query (so case, accents and a slip of
- * a letter do not matter), ranked by Jaccard similarity with a lift for names that start with the query.
+ * Forgiving name search. First the fast path, an index range scan for names with a word that starts
+ * with the most telling query word (search as you type); when that finds too little, candidates sharing
+ * the query's rarest trigrams, ranked by Jaccard likeness, so a slip of a letter still finds the name.
+ * Case and accents never matter: everything is matched on folded keys.
  */
 export async function searchFeatures(db: Db, query: string, limit = 20, status?: 'proposed' | 'confirmed'): Promise<FeatureMatch[]> {
   const key = nameKey(query)
-  const grams = trigrams(key)
-  if (!grams.length) return []
-  let candidates = db.selectFrom('feature_name_trigrams')
-    .innerJoin('feature_names', 'feature_names.id', 'feature_name_trigrams.name_id')
-    .innerJoin('features', 'features.id', 'feature_names.feature_id')
-    .select(eb => [
-      'feature_names.name as matchedName', 'feature_names.name_key', 'feature_names.kind',
-      'features.id', 'features.name', 'features.status', 'features.latitude', 'features.longitude', 'features.pin_count',
-      eb.fn.countAll<number>().as('shared'),
-    ])
-    .where('feature_name_trigrams.trigram', 'in', grams)
-    .where('features.merged_into', 'is', null)
-  if (status) candidates = candidates.where('features.status', '=', status)
-  const rows = await candidates
-    .groupBy(['feature_names.id', 'feature_names.name', 'feature_names.name_key', 'feature_names.kind', 'features.id', 'features.name', 'features.status', 'features.latitude', 'features.longitude', 'features.pin_count'])
-    .orderBy('shared', 'desc')
-    .limit(200)
-    .execute()
+  const queryWords = key.split(' ').filter(Boolean)
+  if (!queryWords.length) return []
+  const queryGrams = trigrams(key)
+  const longest = [...queryWords].sort((a, b) => b.length - a.length)[0]!
+
+  const names = (narrow: (q: ReturnType<typeof namesQuery>) => ReturnType<typeof namesQuery>) => {
+    let q = narrow(namesQuery(db))
+    if (status) q = q.where('features.status', '=', status)
+    return q.execute()
+  }
+  const prefixRows = await names(q => q
+    .innerJoin('feature_name_words', 'feature_name_words.name_id', 'feature_names.id')
+    .where('feature_name_words.word', '>=', longest)
+    .where('feature_name_words.word', '<', prefixEnd(longest))
+    .limit(PREFIX_CANDIDATES))
+  // Word-prefix matches score 1.9 and up; trigram likeness is at most 1.
+  let results = prefixRows.map(row => ({ row, score: scoreName(queryWords, queryGrams, row.name_key) })).filter(r => r.score > 1.5)
+
+  // Likeness only when the prefixes find next to nothing: a slip of a letter, not a short prefix.
+  if (results.length < Math.min(limit, FUZZY_BELOW) && queryGrams.length) {
+    // The rarest trigrams carry the most information and have the shortest lists to read.
+    const counts = await db.selectFrom('feature_name_trigrams')
+      .select(eb => ['trigram', eb.fn.countAll<number>().as('n')])
+      .where('trigram', 'in', queryGrams)
+      .groupBy('trigram')
+      .execute()
+    const rarest = counts.sort((a, b) => Number(a.n) - Number(b.n)).slice(0, 2).map(c => c.trigram)
+    if (rarest.length) {
+      const seen = new Set(prefixRows.map(r => r.nameId))
+      const fuzzyRows = await names(q => q
+        .innerJoin('feature_name_trigrams', 'feature_name_trigrams.name_id', 'feature_names.id')
+        .where('feature_name_trigrams.trigram', 'in', rarest)
+        .limit(FUZZY_CANDIDATES))
+      results = results.concat(fuzzyRows
+        .filter(row => !seen.has(row.nameId))
+        .map(row => ({ row, score: scoreName(queryWords, queryGrams, row.name_key) }))
+        .filter(r => r.score >= 0.3))
+    }
+  }
+
   const best = new Map<string, FeatureMatch>()
-  for (const row of rows) {
-    let score = similarity(grams, trigrams(row.name_key), Number(row.shared))
-    if (row.name_key.startsWith(key)) score += 1
-    else if (row.name_key.includes(key)) score += 0.5
-    if (score < 0.3) continue
+  for (const { row, score } of results) {
     const found = best.get(row.id)
     if (!found || found.score < score) {
       best.set(row.id, {

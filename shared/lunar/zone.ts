@@ -6,7 +6,7 @@ const DAY_MS = 86_400_000
 
 const formatters = new Map<string, Intl.DateTimeFormat>()
 
-function formatterFor(timeZone: unknown, field: string): Intl.DateTimeFormat {
+export function formatterFor(timeZone: unknown, field: string): Intl.DateTimeFormat {
   if (typeof timeZone !== 'string' || timeZone === '') {
     throw new RangeError(`${field} must be an IANA time zone name such as 'Europe/London'; got ${String(timeZone)}`)
   }
@@ -33,7 +33,7 @@ function formatterFor(timeZone: unknown, field: string): Intl.DateTimeFormat {
 }
 
 /** The wall-clock reading in the zone, written as if it were a UTC instant (milliseconds). */
-function wallClockMs(instantMs: number, formatter: Intl.DateTimeFormat): number {
+export function wallClockMs(instantMs: number, formatter: Intl.DateTimeFormat): number {
   const part: Record<string, number> = {}
   for (const { type, value } of formatter.formatToParts(new Date(instantMs))) part[type] = Number(value)
   const wall = new Date(0)

@@ -1,40 +1,15 @@
 // Wall-clock times at a site, in its IANA time zone, with the zone rules the runtime's Intl carries.
 
-const formatters = new Map<string, Intl.DateTimeFormat>()
-
-function formatter(timeZone: string): Intl.DateTimeFormat {
-  let found = formatters.get(timeZone)
-  if (!found) {
-    try {
-      found = new Intl.DateTimeFormat('en-US', {
-        timeZone,
-        hourCycle: 'h23',
-        year: 'numeric',
-        month: 'numeric',
-        day: 'numeric',
-        hour: 'numeric',
-        minute: 'numeric',
-        second: 'numeric',
-      })
-    }
-    catch {
-      throw new RangeError(`timeZone must be an IANA time zone name such as 'Europe/London'; got ${JSON.stringify(timeZone)}`)
-    }
-    formatters.set(timeZone, found)
-  }
-  return found
-}
+import { formatterFor, wallClockMs } from '../lunar/zone'
 
 /** The wall-clock reading at an instant, as if it were a UTC instant (ms). */
 function wallMs(instant: number, timeZone: string): number {
-  const part: Record<string, number> = {}
-  for (const { type, value } of formatter(timeZone).formatToParts(new Date(instant))) part[type] = Number(value)
-  return Date.UTC(part.year ?? 0, (part.month ?? 1) - 1, part.day ?? 1, part.hour ?? 0, part.minute ?? 0, part.second ?? 0)
+  return wallClockMs(instant, formatterFor(timeZone, 'timeZone'))
 }
 
 export function isValidTimeZone(timeZone: string): boolean {
   try {
-    formatter(timeZone)
+    formatterFor(timeZone, 'timeZone')
     return true
   }
   catch {

@@ -1,0 +1,111 @@
+import type { Browser, BrowserContext, Page } from 'playwright-core'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { Client, DEMO, caughtMail, startApp, type RunningApp } from '../support/app'
+import { artifact, launchBrowser } from '../support/browser'
+import { savedSketch } from '../support/sketches'
+
+let app: RunningApp
+let browser: Browser
+let sketchId: string
+let phaseName: string
+let colongitude: number
+
+async function signedIn(role: 'observer' | 'moderator'): Promise<{ context: BrowserContext, page: Page }> {
+  const context = await browser.newContext({ viewport: { width: 1180, height: 820 } })
+  const page = await context.newPage()
+  await page.goto(`${app.url}/sign-in`)
+  await page.getByLabel('E-mail').fill(DEMO[role].email)
+  await page.getByLabel('Password').fill(DEMO[role].password)
+  await page.getByRole('button', { name: 'Sign in' }).click()
+  await page.getByText('Welcome back').waitFor()
+  return { context, page }
+}
+
+beforeAll(async () => {
+  app = await startApp()
+  browser = await launchBrowser()
+  // The drawing itself is the sketch desk's test; here a saved sketch of a demo observation is the start.
+  const observer = new Client(app.url)
+  await observer.signIn(DEMO.observer.email, DEMO.observer.password)
+  const observation = (await observer.get('/api/observations?perPage=1&sort=observedAt&dir=asc')).body.items[0]
+  phaseName = observation.circumstances.phaseName
+  colongitude = observation.circumstances.colongitudeDeg
+  sketchId = await savedSketch(app.url, observer, observation.id)
+  await observer.post(`/api/sketches/${sketchId}/tags`, { x: 0.05, y: 0.1, name: 'Lamplight bay' })
+})
+afterAll(async () => {
+  await browser?.close()
+  await app?.stop()
+})
+
+describe('from the eyepiece to the atlas', () => {
+  it('is submitted, returned with a comment, resubmitted, approved, and found in the atlas by phase and lighting', async () => {
+    const observer = await signedIn('observer')
+    const moderator = await signedIn('moderator')
+
+    await observer.page.goto(`${app.url}/entries`)
+    await observer.page.getByRole('button', { name: 'Submit for review' }).click()
+    await observer.page.getByText('Waiting for review').waitFor()
+
+    await moderator.page.goto(`${app.url}/review`)
+    await moderator.page.getByRole('link', { name: 'Idris Fenwright' }).waitFor()
+    await moderator.page.screenshot({ path: artifact('review-queue.png'), fullPage: true })
+    await moderator.page.getByRole('link', { name: 'Idris Fenwright' }).click()
+    await moderator.page.getByRole('heading', { name: 'Decision' }).waitFor()
+    expect(await moderator.page.getByRole('link', { name: 'Lamplight bay' }).count()).toBe(1)
+    await moderator.page.getByLabel('Comment for the observer').fill('Please mark the terminator where it crosses the crater floors.')
+    await moderator.page.screenshot({ path: artifact('review-desk.png'), fullPage: true })
+    await moderator.page.getByRole('button', { name: 'Return with comments' }).click()
+    await moderator.page.getByText('Returned with comments', { exact: true }).first().waitFor()
+
+    await observer.page.reload()
+    await observer.page.getByText('Please mark the terminator where it crosses the crater floors.').waitFor()
+    await observer.page.getByRole('button', { name: 'Submit again' }).click()
+    await observer.page.getByText('Waiting for review').waitFor()
+
+    await moderator.page.goto(`${app.url}/review/${sketchId}`)
+    await moderator.page.getByRole('button', { name: 'Approve into the atlas' }).click()
+    await moderator.page.getByText('In the atlas', { exact: true }).first().waitFor()
+
+    const visitor = await browser.newPage({ viewport: { width: 1180, height: 820 } })
+    await visitor.goto(`${app.url}/atlas?phase=${phaseName}`)
+    await visitor.locator(`a[href="/atlas/${sketchId}"]`).first().waitFor()
+    const lo = Math.max(0, Math.floor(colongitude - 2))
+    await visitor.goto(`${app.url}/atlas?colongitudeMin=${lo}&colongitudeMax=${Math.min(360, lo + 4)}`)
+    await visitor.locator(`a[href="/atlas/${sketchId}"]`).first().waitFor()
+    // Filters set with the controls land in the URL, so the view can be shared.
+    await visitor.goto(`${app.url}/atlas`)
+    await visitor.getByLabel('Phase').selectOption(phaseName)
+    await visitor.waitForURL(new RegExp(`phase=${phaseName}`))
+    await visitor.locator(`a[href="/atlas/${sketchId}"]`).first().waitFor()
+    await visitor.screenshot({ path: artifact('atlas.png'), fullPage: true })
+    await visitor.locator(`a[href="/atlas/${sketchId}"]`).first().click()
+    await visitor.getByRole('heading', { name: 'Features pinned' }).waitFor()
+    expect(await visitor.getByText(/% of the disk is lit/).count()).toBe(1)
+    await visitor.screenshot({ path: artifact('atlas-entry.png'), fullPage: true })
+    await visitor.getByRole('link', { name: 'Lamplight bay' }).click()
+    await visitor.getByRole('heading', { name: 'Lamplight bay' }).waitFor()
+    await visitor.screenshot({ path: artifact('feature-page.png'), fullPage: true })
+
+    const deadline = Date.now() + 15_000
+    let subjects: string[] = []
+    while (Date.now() < deadline && subjects.length < 2) {
+      subjects = (await caughtMail(app.dataDir))
+        .filter(m => m.to.includes(DEMO.observer.email) && /Your sketch/.test(m.subject))
+        .map(m => m.subject)
+      if (subjects.length < 2) await new Promise(r => setTimeout(r, 100))
+    }
+    expect(subjects.sort()).toEqual(['Your sketch is in the atlas', 'Your sketch was returned with comments'])
+    await observer.context.close()
+    await moderator.context.close()
+  })
+
+  it('explains the phase for a chosen date', async () => {
+    const page = await browser.newPage({ viewport: { width: 1180, height: 820 } })
+    await page.goto(`${app.url}/learn`)
+    await page.getByLabel('Date').fill('2026-11-17')
+    await page.getByText(/First quarter|Waxing/).first().waitFor()
+    await page.screenshot({ path: artifact('learn.png'), fullPage: true })
+    await page.close()
+  })
+})
