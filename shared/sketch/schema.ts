@@ -34,7 +34,7 @@ const Size = (tool: keyof typeof SIZE_RANGE) => z.number()
  * than a schema per number keeps a 200,000-point save quick to check.
  */
 function Points(minPoints: number) {
-  return z.array(z.number()).superRefine((list, ctx) => {
+  return z.custom<number[]>(value => Array.isArray(value), 'Points are a list of numbers.').superRefine((list, ctx) => {
     if (list.length % 3 !== 0) {
       ctx.addIssue({ code: 'custom', message: 'Points come as x, y, pressure triples.' })
       return
@@ -45,9 +45,14 @@ function Points(minPoints: number) {
       return
     }
     for (let i = 0; i < list.length; i += 3) {
-      const x = list[i]!
-      const y = list[i + 1]!
-      const p = list[i + 2]!
+      const x: unknown = list[i]
+      const y: unknown = list[i + 1]
+      const p: unknown = list[i + 2]
+      if (typeof x !== 'number' || typeof y !== 'number' || typeof p !== 'number'
+        || !Number.isFinite(x) || !Number.isFinite(y) || !Number.isFinite(p)) {
+        ctx.addIssue({ code: 'custom', message: `Point ${i / 3} has a value that is not a number.` })
+        return
+      }
       if (x < COORDINATE_MIN || x > COORDINATE_MAX || y < COORDINATE_MIN || y > COORDINATE_MAX) {
         ctx.addIssue({ code: 'custom', message: `Point ${i / 3} lies outside the sketch (${COORDINATE_MIN}..${COORDINATE_MAX}).` })
         return
