@@ -14,6 +14,7 @@ describe('feature names', () => {
     expect(nameKey('  Théophilus ')).toBe('theophilus')
     expect(nameKey('Rupes  Recta — the Straight Wall')).toBe('rupes recta the straight wall')
     expect(nameKey('ÅNGSTRÖM')).toBe('angstrom')
+    expect(nameKey('Ærdwell Strøm')).toBe('aerdwell strom')
     expect(trigrams('ab')).toEqual(['  a', ' ab', 'ab '])
   })
 
