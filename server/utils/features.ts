@@ -101,7 +101,8 @@ export async function searchFeatures(db: Db, query: string, limit = 20, status?:
   const queryWords = key.split(' ').filter(Boolean)
   if (!queryWords.length) return []
   const queryGrams = trigrams(key)
-  const longest = [...queryWords].sort((a, b) => b.length - a.length)[0]!
+  // The longest word narrows the scan most; of equal ones, the last, which is the one being typed.
+  const longest = [...queryWords].reverse().sort((a, b) => b.length - a.length)[0]!
 
   const names = (narrow: (q: ReturnType<typeof namesQuery>) => ReturnType<typeof namesQuery>) => {
     let q = narrow(namesQuery(db))
@@ -114,10 +115,11 @@ export async function searchFeatures(db: Db, query: string, limit = 20, status?:
     .where('feature_name_words.word', '<', prefixEnd(longest))
     .limit(PREFIX_CANDIDATES))
   // Word-prefix matches score 1.9 and up; trigram likeness is at most 1.
-  let results = prefixRows.map(row => ({ row, score: scoreName(queryWords, queryGrams, row.name_key) })).filter(r => r.score > 1.5)
+  let results = prefixRows.map(row => ({ row, score: scoreName(queryWords, queryGrams, row.name_key) })).filter(r => r.score >= 0.3)
+  const strong = results.filter(r => r.score > 1.5).length
 
   // Likeness only when the prefixes find next to nothing: a slip of a letter, not a short prefix.
-  if (results.length < Math.min(limit, FUZZY_BELOW) && queryGrams.length) {
+  if (strong < Math.min(limit, FUZZY_BELOW) && queryGrams.length) {
     // The rarest trigrams carry the most information and have the shortest lists to read.
     const counts = await db.selectFrom('feature_name_trigrams')
       .select(eb => ['trigram', eb.fn.countAll<number>().as('n')])

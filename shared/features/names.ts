@@ -1,8 +1,13 @@
 // Folding and matching feature names: users type "Theophilus", "théophilus" or "theophil" for one crater.
 
-/** Lower case, accents removed, anything but letters and digits folded to single spaces. */
+// Letters that Unicode does not decompose but a reader treats as two plain ones (or one).
+const LIGATURES: Record<string, string> = { æ: 'ae', œ: 'oe', ß: 'ss', ø: 'o', đ: 'd', ł: 'l', þ: 'th', ð: 'd' }
+
+/** Lower case, accents and ligatures undone, anything but letters and digits folded to single spaces. */
 export function nameKey(name: string): string {
-  return name.normalize('NFKD').replace(/\p{M}/gu, '').toLowerCase().replace(/[^\p{L}\p{N}]+/gu, ' ').trim()
+  return name.normalize('NFKD').replace(/\p{M}/gu, '').toLowerCase()
+    .replace(/[æœßøđłþð]/g, letter => LIGATURES[letter]!)
+    .replace(/[^\p{L}\p{N}]+/gu, ' ').trim()
 }
 
 /** The distinct three-letter pieces of a key, padded so that word starts and ends count. */

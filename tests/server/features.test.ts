@@ -33,7 +33,8 @@ describe('the gazetteer over HTTP', () => {
     expect((await visitor.post('/api/features', { name: 'Bright spot' })).status).toBe(401)
     const made = await observer.post('/api/features', { name: 'Crâter Ærdwell', description: 'Invented crater for the test.' })
     expect(made.status).toBe(201)
-    expect((await observer.post('/api/features', { name: 'crater aerdwell' })).status).toBe(201)
+    // Case, accents and ligatures do not make a new name.
+    expect((await observer.post('/api/features', { name: 'crater aerdwell' })).status).toBe(409)
     expect((await observer.post('/api/features', { name: 'CRÂTER ÆRDWELL' })).status).toBe(409)
     expect((await observer.post('/api/features', { name: '   ' })).status).toBe(400)
     expect((await observer.post('/api/features', { name: 'x'.repeat(81) })).status).toBe(400)
@@ -45,7 +46,7 @@ describe('the gazetteer over HTTP', () => {
 
     expect((await observer.patch(`/api/features/${made.body.id}`, { name: 'Wellspring crater' })).status).toBe(403)
     expect((await moderator.patch(`/api/features/${made.body.id}`, { name: 'Wellspring crater', status: 'confirmed' })).status).toBe(200)
-    const byOldName = (await visitor.get(`/api/features?q=${encodeURIComponent('crâter ærdwell')}`)).body.items[0]
+    const byOldName = (await visitor.get('/api/features?q=crater%20aerdwell')).body.items[0]
     expect(byOldName).toMatchObject({ id: made.body.id, name: 'Wellspring crater', matched: 'Crâter Ærdwell' })
   })
 })

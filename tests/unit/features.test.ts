@@ -14,6 +14,7 @@ describe('feature names', () => {
     expect(nameKey('  Théophilus ')).toBe('theophilus')
     expect(nameKey('Rupes  Recta — the Straight Wall')).toBe('rupes recta the straight wall')
     expect(nameKey('ÅNGSTRÖM')).toBe('angstrom')
+    expect(nameKey('Ærdwell Strøm')).toBe('aerdwell strom')
     expect(trigrams('ab')).toEqual(['  a', ' ab', 'ab '])
   })
 
@@ -114,6 +115,8 @@ describe('the gazetteer', () => {
     expect((await searchFeatures(db, 'theofilus'))[0]?.id).toBe(id)
     const byAlias = await searchFeatures(db, 'three ringed')
     expect(byAlias[0]).toMatchObject({ id, matched: 'The three-ringed crater' })
+    // One word right and one mistyped: the right word must not hide the name from the likeness search.
+    expect((await searchFeatures(db, 'three rnged'))[0]?.id).toBe(id)
     expect(await searchFeatures(db, 'zzzz')).toEqual([])
     await expect(createFeature(db, { name: 'THEOPHILUS', description: '', proposedBy: user })).rejects.toMatchObject({ statusCode: 409 })
   })
