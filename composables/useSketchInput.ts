@@ -1,6 +1,7 @@
 import type { Ref } from 'vue'
 import { addSample, finishStroke, startStroke } from '#shared/sketch/strokes'
 import type { StrokeDraft } from '#shared/sketch/strokes'
+import type { SketchPoint } from '#shared/sketch/frame'
 import type { SketchViewport } from './useSketchViewport'
 
 interface Contact {
@@ -12,9 +13,15 @@ interface Contact {
 /**
  * Pointer input on the canvas: drawing with pen, mouse or finger, one-finger or mouse panning with the move
  * tool, two-finger pinch, wheel zoom. In pen-only mode fingers never draw: they move the view, and while the
- * pen is down they are ignored altogether, so a resting palm leaves no mark.
+ * pen is down they are ignored altogether, so a resting palm leaves no mark. With the pin tool a tap names a
+ * place instead of drawing.
  */
-export function useSketchInput(host: Ref<HTMLElement | null>, viewport: SketchViewport, onLive: (draft: StrokeDraft | null) => void) {
+export function useSketchInput(
+  host: Ref<HTMLElement | null>,
+  viewport: SketchViewport,
+  onLive: (draft: StrokeDraft | null) => void,
+  onPin: (at: SketchPoint) => void = () => undefined,
+) {
   const store = useSketchStore()
   const contacts = new Map<number, Contact>()
   let drawing: { pointerId: number, draft: StrokeDraft } | null = null
@@ -36,7 +43,7 @@ export function useSketchInput(host: Ref<HTMLElement | null>, viewport: SketchVi
   }
 
   function settings() {
-    const tool = store.tool === 'move' ? 'pencil' : store.tool
+    const tool = store.tool === 'move' || store.tool === 'pin' ? 'pencil' : store.tool
     const size = tool === 'fill' ? 0 : store.sizes[tool]
     return { tool, tone: store.tone, size }
   }
@@ -84,6 +91,11 @@ export function useSketchInput(host: Ref<HTMLElement | null>, viewport: SketchVi
       return
     }
     if (drawing) return
+    if (store.tool === 'pin') {
+      const at = local(event)
+      onPin(viewport.toSketch(at.x, at.y))
+      return
+    }
     drawing = { pointerId: event.pointerId, draft: startStroke(settings(), pen) }
     sample(drawing.draft, event)
     onLive(drawing.draft)

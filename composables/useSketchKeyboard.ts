@@ -1,7 +1,7 @@
 import type { EditorTool } from '~/stores/sketch'
 import type { SketchViewport } from './useSketchViewport'
 
-const TOOL_KEYS: Record<string, EditorTool> = { p: 'pencil', s: 'shade', e: 'eraser', f: 'fill', m: 'move' }
+const TOOL_KEYS: Record<string, EditorTool> = { p: 'pencil', s: 'shade', e: 'eraser', f: 'fill', m: 'move', l: 'pin' }
 
 /** Keyboard use of the editor: undo/redo, tools, zoom, pan, save. Ignored while typing in a field. */
 export function useSketchKeyboard(viewport: SketchViewport, save: () => void) {

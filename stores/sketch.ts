@@ -5,8 +5,8 @@ import { reframer, sameView } from '#shared/sketch/frame'
 import type { SketchTool, Stroke } from '#shared/sketch/schema'
 import { mapStrokes } from '#shared/sketch/strokes'
 
-/** The drawing tools, and moving the view about. */
-export type EditorTool = SketchTool | 'move'
+/** The drawing tools, moving the view about, and pinning a named place. */
+export type EditorTool = SketchTool | 'move' | 'pin'
 
 /** Where the open sketch stands against the server. */
 export type SyncState = 'loading' | 'saved' | 'saving' | 'pending' | 'offline' | 'conflict' | 'error' | 'read-only'

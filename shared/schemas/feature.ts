@@ -39,6 +39,9 @@ export const TerminatorQuery = z.object({
 export const TagBody = z.object({
   x: z.number().min(-1.5).max(1.5),
   y: z.number().min(-1.5).max(1.5),
+  /** The view the pin was placed in, when the editor's view differs from the one last saved. */
+  orientation: z.enum(['north-up', 'zenith-up']).optional(),
+  flip: z.enum(['none', 'inverted', 'mirrored']).optional(),
   featureId: z.uuid().optional(),
   name: FeatureName.optional(),
 }).refine(b => (b.featureId === undefined) !== (b.name === undefined), 'Pick an existing feature or give a new name, not both.')

@@ -17,7 +17,7 @@ export default defineEventHandler(async (event) => {
     .execute()
   const placed = confirmed.flatMap((f) => {
     const p = selenographicToDisk(f.latitude!, f.longitude!, circumstances, view)
-    return p ? [{ id: f.id, name: f.name, x: p.x, y: p.y }] : []
+    return p ? [{ id: f.id, name: f.name, latitude: f.latitude!, longitude: f.longitude!, x: p.x, y: p.y }] : []
   })
   return { features: placed, nearTerminator: near }
 })

@@ -11,7 +11,9 @@ export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'observer')
   const { id } = await getValidatedRouterParams(event, validParams)
   const body = await readValidatedBody(event, validBody)
-  const { view, circumstances } = await sketchForPins(user, id, 'write')
+  const saved = await sketchForPins(user, id, 'write')
+  const { circumstances } = saved
+  const view = { orientation: body.orientation ?? saved.view.orientation, flip: body.flip ?? saved.view.flip }
   const place = diskToSelenographic(body.x, body.y, circumstances, view)
   if (!place) throw createError({ status: 400, message: 'Pins must be on the Moon\'s disk: that point is beyond the limb.' })
   const db = useDb()
