@@ -1,14 +1,14 @@
 // What the sketch routes answer; the editor and the lists read these shapes.
 
 import type { DiskView } from '../lunar'
+import type { InstrumentView } from '../observing/instrument'
+import type { SketchStatus } from '../review/lifecycle'
 import type { SketchShapes } from './schema'
 
-export type SketchStatus = 'draft' | 'submitted' | 'approved' | 'returned' | 'withdrawn'
+export type { InstrumentView, SketchStatus }
 
 /** Only these may be drawn on; the review lifecycle moves a sketch out of them and back. */
 export const EDITABLE_SKETCH_STATUSES: readonly SketchStatus[] = ['draft', 'returned']
-
-export type InstrumentView = 'upright' | 'inverted' | 'mirrored'
 
 export interface SketchObservation {
   id: string
