@@ -33,7 +33,7 @@ async function lastDecision(db: Kysely<Database>, sketchId: string): Promise<Las
   return row ? { status: row.to_status, by: row.name, at: row.created_at, comment: row.comment } : null
 }
 
-async function publish(trx: Transaction<Database>, sketch: Sketch, at: string): Promise<void> {
+export async function publish(trx: Transaction<Database>, sketch: Sketch, at: string): Promise<void> {
   const row = await trx.selectFrom('observations')
     .innerJoin('sites', 'sites.id', 'observations.site_id')
     .innerJoin('users', 'users.id', 'observations.user_id')

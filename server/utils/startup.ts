@@ -53,7 +53,7 @@ async function start(): Promise<void> {
   await migrateToLatest(db)
   setDb(db)
   closers.push(() => db.destroy())
-  if (shouldSeed() && await seedDemo(db, hashPassword)) console.info('[shadowline] demo data seeded')
+  const seeded = shouldSeed() && await seedDemo(db, hashPassword)
 
   let endpoint = config.s3.endpoint
   if (!endpoint) {
@@ -71,6 +71,10 @@ async function start(): Promise<void> {
   })
   await store.ensureBucket()
   setObjectStore(store)
+  if (seeded) {
+    const sketches = await seedDemoSketches(db, store)
+    console.info(`[shadowline] demo data seeded (${sketches} sketches)`)
+  }
 
   if (config.smtp.host) {
     setMailRuntime({

@@ -1,0 +1,131 @@
+import sharp from 'sharp'
+import type { Kysely } from 'kysely'
+import type { Database } from '../../db/schema'
+import { diskToSelenographic, selenographicToDisk, type DiskView } from '#shared/lunar'
+import { terminatorLongitude } from '#shared/observing/describe'
+import type { StoredCircumstances } from '#shared/observing/night'
+import { DISK_RADIUS, SKETCH_SIZE, diskToSketch, sketchToDisk } from '#shared/sketch/frame'
+import { SHADE_ALPHA, strokeOutline } from '#shared/sketch/outline'
+import { SHAPES_SCHEMA_VERSION, SketchShapes, type Stroke } from '#shared/sketch/schema'
+import { sketchTemplate } from '#shared/sketch/template'
+
+// The invented demo club's published sketches: drawn here from each night's computed disk (a lit area, the
+// terminator, a few craters along it), saved like an editor save, reviewed and published, with pins, so a
+// fresh install shows a working atlas. Demo data only.
+
+const VIEW: DiskView = { orientation: 'zenith-up', flip: 'none' }
+const CRATERS = [
+  { name: 'Lantern ridge', lat: 18, offset: 6, confirmed: true },
+  { name: 'Brackenfield twin craters', lat: -8, offset: 9, confirmed: true },
+  { name: 'Mill pond plain', lat: 32, offset: 14, confirmed: false },
+]
+
+const triple = (points: number[], pressure = 0.5) => {
+  const out: number[] = []
+  for (let i = 0; i + 1 < points.length; i += 2) out.push(Math.round(points[i]! * 10) / 10, Math.round(points[i + 1]! * 10) / 10, pressure)
+  return out
+}
+
+function circle(x: number, y: number, r: number): number[] {
+  const out: number[] = []
+  for (let a = 0; a <= 360; a += 20) out.push(x + r * Math.cos(a * Math.PI / 180), y + r * Math.sin(a * Math.PI / 180))
+  return out
+}
+
+/** Strokes for one night, and where its craters are (selenographic), for the pins. */
+export function demoDrawing(c: StoredCircumstances) {
+  const template = sketchTemplate(c, VIEW)
+  const strokes: Stroke[] = [
+    { id: 'lit', tool: 'fill', tone: 0.82, points: triple(template.lit) },
+    { id: 'terminator', tool: 'pencil', tone: 0.35, size: 10, pen: false, points: triple(template.terminator, 0.6) },
+  ]
+  const terminator = terminatorLongitude(c.colongitudeDeg)
+  // The lit side of the terminator: east of the sunrise line, west of the sunset line.
+  const litward = terminator.kind === 'sunrise' ? 1 : -1
+  const places: { name: string, confirmed: boolean, x: number, y: number }[] = []
+  for (const crater of CRATERS) {
+    const disk = selenographicToDisk(crater.lat, terminator.longitudeDeg + litward * crater.offset, c, VIEW)
+    if (!disk) continue
+    const at = diskToSketch(disk)
+    const r = 26 + crater.offset * 2
+    strokes.push(
+      { id: `rim-${places.length}`, tool: 'pencil', tone: 0.2, size: 6, pen: false, points: triple(circle(at.x, at.y, r), 0.5) },
+      { id: `shadow-${places.length}`, tool: 'shade', tone: 0.1, size: 24, points: triple([at.x - r * 0.4, at.y - r * 0.3, at.x - r * 0.1, at.y + r * 0.3]) },
+    )
+    places.push({ name: crater.name, confirmed: crater.confirmed, ...at })
+  }
+  const shapes = SketchShapes.parse({ schemaVersion: SHAPES_SCHEMA_VERSION, frame: { size: SKETCH_SIZE, diskRadius: DISK_RADIUS }, strokes })
+  return { shapes, places }
+}
+
+/** The strokes as a PNG the way the editor renders its raster: grey tones on a transparent square. */
+export async function demoRaster(shapes: SketchShapes): Promise<Buffer> {
+  const paths = shapes.strokes.map((stroke) => {
+    const outline = strokeOutline(stroke)
+    const tone = 'tone' in stroke ? Math.round(stroke.tone * 255) : 0
+    const d = outline.reduce((path, v, i) => path + (i % 2 === 0 ? `${i ? 'L' : 'M'}${v.toFixed(1)} ` : `${v.toFixed(1)} `), '') + 'Z'
+    const opacity = stroke.tool === 'shade' ? SHADE_ALPHA : 1
+    return `<path d="${d}" fill="rgb(${tone},${tone},${tone})" fill-opacity="${opacity}"/>`
+  })
+  const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="${SKETCH_SIZE}" height="${SKETCH_SIZE}">${paths.join('')}</svg>`
+  return sharp(Buffer.from(svg)).png().toBuffer()
+}
+
+/**
+ * Sketches for the demo observer's series: most published, one waiting for review, one returned with a
+ * comment, with the moderator's decisions recorded as a real review would record them.
+ */
+export async function seedDemoSketches(db: Kysely<Database>, store: ObjectStore): Promise<number> {
+  const observer = await db.selectFrom('users').selectAll().where('email', '=', 'observer@shadowline.test').executeTakeFirst()
+  const moderator = await db.selectFrom('users').selectAll().where('email', '=', 'moderator@shadowline.test').executeTakeFirst()
+  if (!observer || !moderator) return 0
+  const observations = await db.selectFrom('observations').selectAll().where('user_id', '=', observer.id).orderBy('observed_at').execute()
+  const features = new Map<string, string>()
+  let made = 0
+  for (const [index, observation] of observations.entries()) {
+    if (index % 2 === 1 && index !== observations.length - 1) continue
+    const c = JSON.parse(observation.circumstances) as StoredCircumstances
+    const { shapes, places } = demoDrawing(c)
+    const id = newId()
+    const saveId = newId()
+    const keys = await ingestRaster(store, sketchObjectPrefix(id, saveId), await demoRaster(shapes), SKETCH_SIZE)
+    const at = observation.observed_at
+    const status = index === observations.length - 1 ? 'submitted' : index === 2 ? 'returned' : 'approved'
+    const sketch = {
+      id, observation_id: observation.id, user_id: observer.id, status, version: 2, schema_version: SHAPES_SCHEMA_VERSION,
+      shapes: JSON.stringify(shapes), view_orientation: VIEW.orientation, view_flip: VIEW.flip,
+      raster_key: keys.raster, thumb_small_key: keys.small, thumb_large_key: keys.large, submitted_at: at, created_at: at, updated_at: at,
+    } as const
+    await db.transaction().execute(async (trx) => {
+      await trx.insertInto('sketches').values(sketch).execute()
+      await trx.insertInto('sketch_revisions').values({
+        id: newId(), sketch_id: id, version: 2, schema_version: SHAPES_SCHEMA_VERSION, shapes: sketch.shapes,
+        view_orientation: VIEW.orientation, view_flip: VIEW.flip, raster_key: keys.raster, created_by: observer.id, created_at: at, save_id: saveId,
+      }).execute()
+      await trx.insertInto('sketch_reviews').values({ id: newId(), sketch_id: id, actor_id: observer.id, from_status: 'draft', to_status: 'submitted', comment: '', created_at: at }).execute()
+      if (status !== 'submitted') {
+        const comment = status === 'returned' ? 'Lovely start. Please add the craters you saw along the terminator near the southern cusp.' : 'Clear terminator and careful shading.'
+        await trx.insertInto('sketch_reviews').values({ id: newId(), sketch_id: id, actor_id: moderator.id, from_status: 'submitted', to_status: status, comment, created_at: at }).execute()
+      }
+      if (status === 'approved') await publish(trx, { ...sketch, version: 2 }, at)
+    })
+    for (const place of places) {
+      let featureId = features.get(place.name)
+      if (!featureId) {
+        featureId = await createFeature(db, { name: place.name, description: 'Named by the Brackenfield Moonwatchers (demo).', proposedBy: observer.id })
+        if (place.confirmed) await db.updateTable('features').set({ status: 'confirmed' }).where('id', '=', featureId).execute()
+        features.set(place.name, featureId)
+      }
+      const disk = sketchToDisk(place)
+      const seleno = diskToSelenographic(disk.x, disk.y, c, VIEW)
+      if (!seleno) continue
+      await db.insertInto('feature_tags').values({
+        id: newId(), sketch_id: id, feature_id: featureId, user_id: observer.id, disk_x: disk.x, disk_y: disk.y,
+        view_orientation: VIEW.orientation, view_flip: VIEW.flip, latitude: seleno.lat, longitude: seleno.lon, created_at: at,
+      }).execute()
+    }
+    made += 1
+  }
+  for (const featureId of features.values()) await recomputePosition(db, featureId)
+  return made
+}
