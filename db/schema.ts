@@ -236,6 +236,11 @@ export interface FeatureNameTrigramsTable {
   name_id: string
 }
 
+export interface FeatureTrigramCountsTable {
+  trigram: string
+  names: number
+}
+
 export interface FeatureTagsTable {
   id: string
   sketch_id: string
@@ -269,6 +274,7 @@ export interface Database {
   feature_names: FeatureNamesTable
   feature_name_words: FeatureNameWordsTable
   feature_name_trigrams: FeatureNameTrigramsTable
+  feature_trigram_counts: FeatureTrigramCountsTable
   feature_tags: FeatureTagsTable
 }
 

@@ -46,6 +46,7 @@ export async function buildSyntheticDb(dataDir: string, size: SyntheticSize): Pr
     const name = db.prepare(`insert into feature_names (id, feature_id, name, name_key, kind, created_at) values (?, ?, ?, ?, ?, ?)`)
     const gram = db.prepare(`insert or ignore into feature_name_trigrams (trigram, name_id) values (?, ?)`)
     const word = db.prepare(`insert or ignore into feature_name_words (word, name_id) values (?, ?)`)
+    const count = db.prepare(`insert into feature_trigram_counts (trigram, names) values (?, 1) on conflict (trigram) do update set names = names + 1`)
     for (let i = 0; i < size.features; i += 1) {
       const id = randomUUID()
       const label = inventedName(rand, i)
@@ -56,7 +57,10 @@ export async function buildSyntheticDb(dataDir: string, size: SyntheticSize): Pr
         const nameId = randomUUID()
         const key = nameKey(text)
         name.run(nameId, id, text, key, kind, at)
-        for (const t of trigrams(key)) gram.run(t, nameId)
+        for (const t of trigrams(key)) {
+          gram.run(t, nameId)
+          count.run(t)
+        }
         for (const w of key.split(' ')) word.run(w, nameId)
       }
       featureIds.push(id)

@@ -49,6 +49,13 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addPrimaryKeyConstraint('feature_name_trigrams_pk', ['trigram', 'name_id'])
     .execute()
 
+  // How many names hold each trigram, so a search can start from its rarest ones without counting.
+  await db.schema
+    .createTable('feature_trigram_counts')
+    .addColumn('trigram', 'text', c => c.primaryKey())
+    .addColumn('names', 'integer', c => c.notNull())
+    .execute()
+
   await db.schema
     .createTable('feature_tags')
     .addColumn('id', 'text', c => c.primaryKey())
@@ -68,7 +75,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 }
 
 export async function down(db: Kysely<any>): Promise<void> {
-  for (const table of ['feature_tags', 'feature_name_trigrams', 'feature_name_words', 'feature_names', 'features']) {
+  for (const table of ['feature_tags', 'feature_trigram_counts', 'feature_name_trigrams', 'feature_name_words', 'feature_names', 'features']) {
     await db.schema.dropTable(table).execute()
   }
 }

@@ -13,7 +13,12 @@ export async function addName(db: Db, featureId: string, name: string, kind: 'na
   const key = nameKey(name)
   await db.insertInto('feature_names').values({ id, feature_id: featureId, name: name.trim(), name_key: key, kind, created_at: new Date().toISOString() }).execute()
   const grams = trigrams(key)
-  if (grams.length) await db.insertInto('feature_name_trigrams').values(grams.map(trigram => ({ trigram, name_id: id }))).execute()
+  if (grams.length) {
+    await db.insertInto('feature_name_trigrams').values(grams.map(trigram => ({ trigram, name_id: id }))).execute()
+    await db.insertInto('feature_trigram_counts').values(grams.map(trigram => ({ trigram, names: 1 })))
+      .onConflict(oc => oc.column('trigram').doUpdateSet(eb => ({ names: eb('feature_trigram_counts.names', '+', 1) })))
+      .execute()
+  }
   const words = [...new Set(key.split(' ').filter(Boolean))]
   if (words.length) await db.insertInto('feature_name_words').values(words.map(word => ({ word, name_id: id }))).execute()
 }
@@ -63,7 +68,7 @@ export interface FeatureMatch {
   score: number
 }
 
-const PREFIX_CANDIDATES = 80
+const PREFIX_CANDIDATES = 50
 const FUZZY_CANDIDATES = 200
 const FUZZY_BELOW = 5
 
@@ -121,12 +126,12 @@ export async function searchFeatures(db: Db, query: string, limit = 20, status?:
   // Likeness only when the prefixes find next to nothing: a slip of a letter, not a short prefix.
   if (strong < Math.min(limit, FUZZY_BELOW) && queryGrams.length) {
     // The rarest trigrams carry the most information and have the shortest lists to read.
-    const counts = await db.selectFrom('feature_name_trigrams')
-      .select(eb => ['trigram', eb.fn.countAll<number>().as('n')])
+    const rarest = (await db.selectFrom('feature_trigram_counts')
+      .select('trigram')
       .where('trigram', 'in', queryGrams)
-      .groupBy('trigram')
-      .execute()
-    const rarest = counts.sort((a, b) => Number(a.n) - Number(b.n)).slice(0, 2).map(c => c.trigram)
+      .orderBy('names')
+      .limit(2)
+      .execute()).map(c => c.trigram)
     if (rarest.length) {
       const seen = new Set(prefixRows.map(r => r.nameId))
       const fuzzyRows = await names(q => q
