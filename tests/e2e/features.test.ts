@@ -4,7 +4,7 @@
 import type { Browser, BrowserContext } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { Client, DEMO, startApp, type RunningApp } from '../support/app'
-import { artifact, launchBrowser } from '../support/browser'
+import { artifact, launchBrowser, openReady } from '../support/browser'
 
 let app: RunningApp
 let browser: Browser
@@ -23,7 +23,7 @@ beforeAll(async () => {
   otherNight = (await observer.post('/api/sketches', { observationId: nights[5].id })).body.id
   context = await browser.newContext({ viewport: { width: 1280, height: 800 } })
   const page = await context.newPage()
-  await page.goto(`${app.url}/sign-in`)
+  await openReady(page, `${app.url}/sign-in`)
   await page.getByLabel('E-mail').fill(DEMO.observer.email)
   await page.getByLabel('Password').fill(DEMO.observer.password)
   await page.getByRole('button', { name: 'Sign in' }).click()
@@ -38,7 +38,7 @@ afterAll(async () => {
 describe('features on the sketch desk', () => {
   it('pins a new name, shows it on its feature page and over another night once confirmed', async () => {
     const page = await context.newPage()
-    await page.goto(`${app.url}/sketches/${firstNight}`)
+    await openReady(page, `${app.url}/sketches/${firstNight}`)
     const canvas = page.getByTestId('sketch-canvas')
     await canvas.waitFor()
     await page.getByRole('button', { name: /Name a place/ }).click()
@@ -65,7 +65,7 @@ describe('features on the sketch desk', () => {
     await moderator.signIn(DEMO.moderator.email, DEMO.moderator.password)
     expect((await moderator.patch(`/api/features/${featureId}`, { status: 'confirmed' })).status).toBe(200)
 
-    await page.goto(`${app.url}/sketches/${otherNight}`)
+    await openReady(page, `${app.url}/sketches/${otherNight}`)
     await page.getByTestId('sketch-canvas').waitFor()
     await page.getByLabel('Show the gazetteer\'s features').check()
     await page.getByTestId('overlay-features').getByRole('link', { name: 'Fenwright hollow' }).waitFor()
@@ -75,7 +75,7 @@ describe('features on the sketch desk', () => {
 
   it('lets the keyboard pin the middle of the view', async () => {
     const page = await context.newPage()
-    await page.goto(`${app.url}/sketches/${otherNight}`)
+    await openReady(page, `${app.url}/sketches/${otherNight}`)
     await page.getByTestId('sketch-canvas').waitFor()
     await page.getByRole('button', { name: 'pin the centre' }).focus()
     await page.keyboard.press('Enter')

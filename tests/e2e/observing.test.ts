@@ -3,7 +3,7 @@ import sharp from 'sharp'
 import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { DEMO, startApp, type RunningApp } from '../support/app'
-import { artifact, launchBrowser } from '../support/browser'
+import { artifact, launchBrowser, openReady } from '../support/browser'
 
 let app: RunningApp
 let browser: Browser
@@ -14,7 +14,7 @@ beforeAll(async () => {
   browser = await launchBrowser()
   // A 10-inch tablet in landscape.
   page = await browser.newPage({ viewport: { width: 1280, height: 800 } })
-  await page.goto(`${app.url}/sign-in`)
+  await openReady(page, `${app.url}/sign-in`)
   await page.getByLabel('E-mail').fill(DEMO.observer.email)
   await page.getByLabel('Password').fill(DEMO.observer.password)
   await page.getByRole('button', { name: 'Sign in' }).click()
@@ -27,7 +27,7 @@ afterAll(async () => {
 
 describe('an observing night', () => {
   it('plans tonight with the cautions, the evening plot and the lunation evenings', async () => {
-    await page.goto(`${app.url}/tonight?date=2026-11-16`)
+    await openReady(page, `${app.url}/tonight?date=2026-11-16`)
     await page.getByRole('heading', { name: 'Through the evening' }).waitFor()
     await page.locator('canvas').first().waitFor()
     expect(await page.getByLabel('Observing safely').count()).toBeGreaterThan(0)
@@ -36,7 +36,7 @@ describe('an observing night', () => {
   })
 
   it('logs an observation with both measurements and shows predicted values and residuals', async () => {
-    await page.goto(`${app.url}/observations/new`)
+    await openReady(page, `${app.url}/observations/new`)
     await page.getByLabel('Date at the site').fill('2026-11-18')
     await page.getByLabel(/^Time at the site/).fill('18:30')
     await page.getByText('Binoculars', { exact: true }).click()
@@ -61,7 +61,7 @@ describe('an observing night', () => {
   })
 
   it('opens the lunation worksheet with its plots, table and compass offset, and prints cleanly', async () => {
-    await page.goto(`${app.url}/observations`)
+    await openReady(page, `${app.url}/observations`)
     await page.getByRole('link', { name: /2026-11-18/ }).click()
     await page.getByRole('link', { name: 'Lunation worksheet' }).click()
     await page.getByRole('heading', { name: 'Lunation worksheet' }).waitFor()
@@ -75,7 +75,7 @@ describe('an observing night', () => {
   })
 
   it('exports the list as CSV with a header and one row per observation', async () => {
-    await page.goto(`${app.url}/observations`)
+    await openReady(page, `${app.url}/observations`)
     const total = Number((await page.getByText(/observations$/).textContent())!.match(/(\d+) observations/)![1])
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Export CSV' }).click()])
     const csv = readFileSync((await download.path())!, 'utf8').trim().split('\n')
@@ -91,7 +91,7 @@ describe('an observing night', () => {
       buffer: await sharp({ create: { width: 1600, height: 1200, channels: 3, background: { r: 20 + i * 30, g: 20, b: 30 } } })
         .jpeg().withExif({ IFD2: { DateTimeOriginal: when } }).toBuffer(),
     })))
-    await page.goto(`${app.url}/photos`)
+    await openReady(page, `${app.url}/photos`)
     await page.getByLabel('Photos').setInputFiles(files)
     await page.getByRole('button', { name: 'Upload' }).click()
     await page.locator('progress').waitFor()
@@ -104,7 +104,7 @@ describe('an observing night', () => {
   })
 
   it('manages sites', async () => {
-    await page.goto(`${app.url}/sites`)
+    await openReady(page, `${app.url}/sites`)
     await page.getByRole('button', { name: 'Add a site' }).click()
     await page.getByLabel('Name').fill('Orchard gate')
     await page.getByLabel('Latitude (° north +)').fill('-33.9')

@@ -1,7 +1,7 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { Client, DEMO, caughtMail, startApp, type RunningApp } from '../support/app'
-import { artifact, launchBrowser } from '../support/browser'
+import { artifact, launchBrowser, openReady } from '../support/browser'
 import { savedSketch } from '../support/sketches'
 
 let app: RunningApp
@@ -13,7 +13,7 @@ let colongitude: number
 async function signedIn(role: 'observer' | 'moderator'): Promise<{ context: BrowserContext, page: Page }> {
   const context = await browser.newContext({ viewport: { width: 1180, height: 820 } })
   const page = await context.newPage()
-  await page.goto(`${app.url}/sign-in`)
+  await openReady(page, `${app.url}/sign-in`)
   await page.getByLabel('E-mail').fill(DEMO[role].email)
   await page.getByLabel('Password').fill(DEMO[role].password)
   await page.getByRole('button', { name: 'Sign in' }).click()
@@ -43,12 +43,12 @@ describe('from the eyepiece to the atlas', () => {
     const observer = await signedIn('observer')
     const moderator = await signedIn('moderator')
 
-    await observer.page.goto(`${app.url}/entries`)
+    await openReady(observer.page, `${app.url}/entries`)
     const entry = observer.page.locator(`[data-entry="${sketchId}"]`)
     await entry.getByRole('button', { name: 'Submit for review' }).click()
     await entry.getByText('Waiting for review').waitFor()
 
-    await moderator.page.goto(`${app.url}/review`)
+    await openReady(moderator.page, `${app.url}/review`)
     const row = moderator.page.locator(`[data-entry="${sketchId}"]`)
     await row.getByRole('link', { name: 'Idris Fenwright' }).waitFor()
     await moderator.page.screenshot({ path: artifact('review-queue.png'), fullPage: true })
@@ -65,18 +65,18 @@ describe('from the eyepiece to the atlas', () => {
     await entry.getByRole('button', { name: 'Submit again' }).click()
     await entry.getByText('Waiting for review').waitFor()
 
-    await moderator.page.goto(`${app.url}/review/${sketchId}`)
+    await openReady(moderator.page, `${app.url}/review/${sketchId}`)
     await moderator.page.getByRole('button', { name: 'Approve into the atlas' }).click()
     await moderator.page.getByText('In the atlas', { exact: true }).first().waitFor()
 
     const visitor = await browser.newPage({ viewport: { width: 1180, height: 820 } })
-    await visitor.goto(`${app.url}/atlas?phase=${phaseName}`)
+    await openReady(visitor, `${app.url}/atlas?phase=${phaseName}`)
     await visitor.locator(`a[href="/atlas/${sketchId}"]`).first().waitFor()
     const lo = Math.max(0, Math.floor(colongitude - 2))
-    await visitor.goto(`${app.url}/atlas?colongitudeMin=${lo}&colongitudeMax=${Math.min(360, lo + 4)}`)
+    await openReady(visitor, `${app.url}/atlas?colongitudeMin=${lo}&colongitudeMax=${Math.min(360, lo + 4)}`)
     await visitor.locator(`a[href="/atlas/${sketchId}"]`).first().waitFor()
     // Filters set with the controls land in the URL, so the view can be shared.
-    await visitor.goto(`${app.url}/atlas`)
+    await openReady(visitor, `${app.url}/atlas`)
     await visitor.getByLabel('Phase').selectOption(phaseName)
     await visitor.waitForURL(new RegExp(`phase=${phaseName}`))
     await visitor.locator(`a[href="/atlas/${sketchId}"]`).first().waitFor()
@@ -105,7 +105,7 @@ describe('from the eyepiece to the atlas', () => {
 
   it('explains the phase for a chosen date', async () => {
     const page = await browser.newPage({ viewport: { width: 1180, height: 820 } })
-    await page.goto(`${app.url}/learn`)
+    await openReady(page, `${app.url}/learn`)
     await page.getByLabel('Date').fill('2026-11-17')
     await page.getByText(/First quarter|Waxing/).first().waitFor()
     await page.screenshot({ path: artifact('learn.png'), fullPage: true })

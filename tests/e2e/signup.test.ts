@@ -1,7 +1,7 @@
 import type { Browser } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { linkIn, startApp, waitForMail, type RunningApp } from '../support/app'
-import { artifact, launchBrowser } from '../support/browser'
+import { artifact, launchBrowser, openReady } from '../support/browser'
 
 let app: RunningApp
 let browser: Browser
@@ -20,7 +20,7 @@ describe('a newcomer joins', () => {
     const page = await browser.newPage({ viewport: { width: 1180, height: 820 } })
     const email = 'orla.tidewell@example.test'
 
-    await page.goto(`${app.url}/sign-up`)
+    await openReady(page, `${app.url}/sign-up`)
     await page.getByLabel('Name shown to your group').fill('Orla Tidewell')
     await page.getByLabel('E-mail').fill(email)
     await page.getByLabel('Password').fill('a-clear-night-sky')
@@ -28,10 +28,10 @@ describe('a newcomer joins', () => {
     await page.getByText('We sent a link').waitFor()
 
     const mail = await waitForMail(app.dataDir, email, /Confirm your Shadowline/)
-    await page.goto(linkIn(mail.text, '/verify-email'))
+    await openReady(page, linkIn(mail.text, '/verify-email'))
     await page.getByText('Your address is confirmed.').waitFor()
 
-    await page.goto(`${app.url}/sign-in`)
+    await openReady(page, `${app.url}/sign-in`)
     await page.getByLabel('E-mail').fill(email)
     await page.getByLabel('Password').fill('a-clear-night-sky')
     await page.getByRole('button', { name: 'Sign in' }).click()
@@ -52,7 +52,7 @@ describe('a newcomer joins', () => {
 
   it('keeps signed-out visitors out of the admin pages, on the page and on the server', async () => {
     const page = await browser.newPage()
-    await page.goto(`${app.url}/admin/users`)
+    await openReady(page, `${app.url}/admin/users`)
     await page.waitForURL(/\/sign-in\?next=/)
     const api = await page.request.get(`${app.url}/api/admin/users`)
     expect(api.status()).toBe(401)
@@ -61,7 +61,7 @@ describe('a newcomer joins', () => {
 
   it('shows an administrator the accounts and the caught mail', async () => {
     const page = await browser.newPage({ viewport: { width: 1024, height: 768 } })
-    await page.goto(`${app.url}/sign-in?next=/admin/users`)
+    await openReady(page, `${app.url}/sign-in?next=/admin/users`)
     await page.getByLabel('E-mail').fill('admin@shadowline.test')
     await page.getByLabel('Password').fill('moonlit-admin')
     await page.getByRole('button', { name: 'Sign in' }).click()

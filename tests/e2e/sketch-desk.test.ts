@@ -4,7 +4,7 @@
 import type { Browser, BrowserContext, CDPSession, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { DEMO, startApp, type RunningApp } from '../support/app'
-import { artifact, launchBrowser } from '../support/browser'
+import { artifact, launchBrowser, openReady } from '../support/browser'
 import { insertObservation } from '../support/observations'
 
 let app: RunningApp
@@ -28,7 +28,7 @@ afterAll(async () => {
 async function signedIn(options: { hasTouch?: boolean } = {}): Promise<BrowserContext> {
   const context = await browser.newContext({ viewport: LANDSCAPE, ...options })
   const page = await context.newPage()
-  await page.goto(`${app.url}/sign-in`)
+  await openReady(page, `${app.url}/sign-in`)
   await page.getByLabel('E-mail').fill(DEMO.observer.email)
   await page.getByLabel('Password').fill(DEMO.observer.password)
   await page.getByRole('button', { name: 'Sign in' }).click()

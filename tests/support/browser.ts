@@ -1,6 +1,6 @@
 import { mkdirSync } from 'node:fs'
 import { join, resolve } from 'node:path'
-import { chromium, type Browser } from 'playwright-core'
+import { chromium, type Browser, type Page } from 'playwright-core'
 
 export const ARTIFACTS = resolve(import.meta.dirname, '../e2e/artifacts')
 
@@ -18,4 +18,10 @@ export async function launchBrowser(): Promise<Browser> {
 
 export function artifact(name: string): string {
   return join(ARTIFACTS, name)
+}
+
+/** Opens a page and waits until the app has hydrated it, so typed values reach the forms' state. */
+export async function openReady(page: Page, url: string): Promise<void> {
+  await page.goto(url)
+  await page.waitForSelector('html[data-hydrated="true"]', { state: 'attached' })
 }
