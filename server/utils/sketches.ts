@@ -1,4 +1,4 @@
-import { createError, getRequestHeader } from 'h3'
+import { createError } from 'h3'
 import type { H3Event } from 'h3'
 import type { Kysely } from 'kysely'
 import type { Database, User } from '../../db/schema'
@@ -110,28 +110,7 @@ export function sketchObjectPrefix(sketchId: string, saveId: string): string {
  * of an oversized body is read and dropped so the answer still reaches the client.
  */
 export function readSketchBody(event: H3Event, maxBytes: number): Promise<Buffer> {
-  const tooLarge = () => createError({ status: 413, message: `A save is limited to ${Math.round(maxBytes / 1024 / 1024)} MB.` })
-  const declared = Number(getRequestHeader(event, 'content-length'))
-  if (Number.isFinite(declared) && declared > maxBytes) return Promise.reject(tooLarge())
-  const request = event.node.req
-  return new Promise((resolve, reject) => {
-    const chunks: Buffer[] = []
-    let total = 0
-    let refused = false
-    request.on('data', (chunk: Buffer) => {
-      total += chunk.length
-      if (total > maxBytes && !refused) {
-        refused = true
-        chunks.length = 0
-        reject(tooLarge())
-      }
-      if (!refused) chunks.push(chunk)
-    })
-    request.on('end', () => {
-      if (!refused) resolve(Buffer.concat(chunks))
-    })
-    request.on('error', reject)
-  })
+  return readLimitedBody(event, maxBytes, `A save is limited to ${Math.round(maxBytes / 1024 / 1024)} MB.`)
 }
 
 export interface SketchUpload {
@@ -141,32 +120,15 @@ export interface SketchUpload {
 
 /** Splits a multipart save into its text fields and the raster file. */
 export async function parseSketchUpload(event: H3Event, body: Buffer): Promise<SketchUpload> {
-  const type = getRequestHeader(event, 'content-type') ?? ''
-  if (!/^multipart\/form-data;/i.test(type)) {
-    throw createError({ status: 415, message: 'Send the save as multipart/form-data with the drawing and its raster.' })
-  }
-  const form = await new Response(new Uint8Array(body), { headers: { 'content-type': type } }).formData().catch(() => {
-    throw createError({ status: 400, message: 'The save could not be read as multipart/form-data.' })
-  })
-  const fields: Record<string, string> = {}
-  let raster: Uint8Array | null = null
-  for (const [name, value] of form.entries()) {
-    if (name === 'raster' && typeof value !== 'string') raster = new Uint8Array(await value.arrayBuffer())
-    else if (typeof value === 'string') fields[name] = value
-    else fields[name] = await value.text()
-  }
-  return { fields, raster }
+  const { fields, files } = await readMultipart(event, body, 'save with the drawing and its raster')
+  // A drawing sent as a file part is read as text like any other field.
+  for (const [name, file] of files) if (name !== 'raster') fields[name] = new TextDecoder().decode(file.bytes)
+  return { fields, raster: files.get('raster')?.bytes ?? null }
 }
 
 /** Validates parsed multipart fields and fails the way readValidatedBody does: 400 with data.fields. */
 export function validSketchFields<T>(validate: (input: unknown) => T, fields: Record<string, string>): T {
-  try {
-    return validate(fields)
-  }
-  catch (error) {
-    const message = error instanceof Error ? error.message : 'Validation Error'
-    throw createError({ status: 400, statusMessage: 'Validation Error', message, data: error })
-  }
+  return validated(validate, fields)
 }
 
 export function sketchConflict(current: { version: number, updated_at: string }) {

@@ -20,3 +20,17 @@ export function parseWith<T extends z.ZodType>(schema: T) {
     throw Object.assign(new Error(`${where}${first?.message ?? 'Invalid input'}`), { fields })
   }
 }
+
+/**
+ * Runs a `parseWith` validator outside h3's readValidated* helpers (multipart fields, say) and answers a
+ * failure the same way they do: 400, the first problem as the message, every field's messages in `data`.
+ */
+export function validated<T>(validate: (input: unknown) => T, input: unknown): T {
+  try {
+    return validate(input)
+  }
+  catch (error) {
+    const message = error instanceof Error ? error.message : 'Invalid input'
+    throw createError({ status: 400, statusMessage: 'Validation Error', message, data: error })
+  }
+}

@@ -5,23 +5,19 @@ const validFields = parseWith(PhotoUploadFields)
 
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'learner')
-  // Refuse an oversized upload before reading it.
-  const declared = Number(getRequestHeader(event, 'content-length') ?? 0)
-  if (declared > PHOTO_MAX_BYTES + 64 * 1024) {
-    throw createError({ status: 413, message: `Photos are limited to ${PHOTO_MAX_BYTES / 1024 / 1024} MB.` })
-  }
-  const parts = await readMultipartFormData(event)
-  const file = parts?.find(p => p.name === 'file' && p.filename)
+  // The limit holds while reading, so an oversized upload is refused before it fills memory.
+  const body = await readLimitedBody(event, PHOTO_MAX_BYTES + 64 * 1024, `Photos are limited to ${PHOTO_MAX_BYTES / 1024 / 1024} MB.`)
+  const { fields: text, files } = await readMultipart(event, body, 'photo')
+  const file = files.get('file')
   if (!file) throw createError({ status: 400, message: 'file: Choose a photo to upload.' })
-  const text = Object.fromEntries((parts ?? []).filter(p => !p.filename && p.name).map(p => [p.name!, p.data.toString('utf8')]))
-  const fields = validFields(text)
+  const fields = validated(validFields, text)
   const site = await ownSite(user.id, fields.siteId).catch(() => {
     throw createError({ status: 400, message: 'siteId: Choose one of your sites.' })
   })
 
   let processed
   try {
-    processed = await processPhoto(file.data, site.time_zone)
+    processed = await processPhoto(Buffer.from(file.bytes), site.time_zone)
   }
   catch (error) {
     if (error instanceof PhotoRejected) throw createError({ status: error.status, message: error.message })
