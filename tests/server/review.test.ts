@@ -76,6 +76,13 @@ describe('the entry lifecycle', () => {
     expect((await observer.post(`/api/entries/${id}/decision`, { decision: 'approve' })).status).toBe(403)
     await observer.post(`/api/entries/${id}/submit`)
     expect((await observer.post(`/api/entries/${id}/submit`)).status).toBe(409)
+    // The observation a moderator is judging the sketch against cannot change under them, nor vanish.
+    const o = observations[1]! as any
+    const edit = await observer.request('PUT', `/api/observations/${o.id}`, {
+      siteId: o.site.id, localDate: o.localDate, localTime: '21:00', instrument: { kind: 'naked-eye' }, view: 'upright',
+    })
+    expect(edit.status).toBe(409)
+    expect((await observer.request('DELETE', `/api/observations/${o.id}`)).status).toBe(409)
     expect((await decide(moderator, id, 'withdraw', 'no reason')).status).toBe(409)
     expect((await decide(moderator, id, 'publish')).status).toBe(400)
     await decide(moderator, id, 'approve')

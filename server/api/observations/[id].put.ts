@@ -10,11 +10,17 @@ export default defineEventHandler(async (event) => {
   const { id } = await getValidatedRouterParams(event, validParams)
   const input = await readValidatedBody(event, validBody)
   await ownObservation(user.id, id)
+  const db = useDb()
+  // A sketch in review or in the atlas was judged against these circumstances; they stay as they are.
+  const judged = await db.selectFrom('sketches').select('id')
+    .where('observation_id', '=', id)
+    .where('status', 'in', ['submitted', 'approved'])
+    .executeTakeFirst()
+  if (judged) throw createError({ status: 409, message: 'A sketch of this observation is in review or in the atlas; it cannot be changed.' })
   const site = await ownSite(user.id, input.siteId).catch(() => {
     throw createError({ status: 400, message: 'siteId: Choose one of your sites.', data: { fields: { siteId: ['Choose one of your sites.'] } } })
   })
   const { fields, measurements } = buildObservation(input, site)
-  const db = useDb()
   await db.transaction().execute(async (trx) => {
     await trx.updateTable('observations').set({ ...fields, updated_at: nowIso() })
       .where('id', '=', id).where('user_id', '=', user.id).execute()
