@@ -30,7 +30,7 @@ export { LUNAR_MODEL_VERSION } from './version'
 export { geocentricCircumstances, lunarCircumstances } from './circumstances'
 export { riseSetTransit } from './riseset'
 export { localDateOf, localDayBounds } from './zone'
-export { lunationBounds, phaseEvents, phaseNameFor } from './phases'
+export { lunationBounds, moonSunLongitudeDifference, phaseEvents, phaseNameAt, phaseNameFor } from './phases'
 export {
   diskToSelenographic,
   positionAngleDirection,

@@ -1,6 +1,6 @@
 // Lunation events: new moon, quarters and full moon, and the phase name of an instant.
 
-import { AstroTime, MakeTime, SearchMoonPhase } from 'astronomy-engine'
+import { AstroTime, MakeTime, MoonPhase, SearchMoonPhase } from 'astronomy-engine'
 import { requireDate } from './validate'
 import type { LunationBounds, PhaseEvent, PhaseKind, PhaseName } from './types'
 
@@ -108,4 +108,17 @@ export function phaseNameFor(longitudeDifferenceDeg: number): PhaseName {
   if (d < 180) return 'waxing-gibbous'
   if (d < 270) return 'waning-gibbous'
   return 'waning-crescent'
+}
+
+/**
+ * The phase name at an instant from the Moon–Sun difference in ecliptic longitude (the library's MoonPhase,
+ * without the 20″ aberration correction that matters only for phase instants, not for naming).
+ */
+export function phaseNameAt(at: Date): PhaseName {
+  return phaseNameFor(moonSunLongitudeDifference(at))
+}
+
+/** The Moon's ecliptic longitude less the Sun's, 0..360: 0 at new moon, 90 at first quarter, 180 at full. */
+export function moonSunLongitudeDifference(at: Date): number {
+  return MoonPhase(requireDate(at, 'at'))
 }

@@ -4,7 +4,7 @@ import { altitudeMeasurement, angleDifference, azimuthMeasurement, estimateConst
 import { describeInstrument, effectiveMagnification, templateFlip } from '../../shared/observing/instrument'
 import { lunationNights, predictedAtClockTime, trendNotes, typicalClockTime } from '../../shared/observing/worksheet'
 import { lunationEvenings } from '../../shared/observing/tonight'
-import { magneticDeclination } from '../../shared/lunar'
+import { magneticDeclination, phaseNameAt } from '../../shared/lunar'
 
 // An invented mid-northern site for the computed checks.
 const FIELD = { latitude: 52.634, longitude: -1.692, elevation: 95, timeZone: 'Europe/London' }
@@ -118,5 +118,16 @@ describe('the evenings of a lunation', () => {
     expect(start[0]!.elongationDeg).toBeGreaterThan(15)
     expect(evenings.indexOf(start[0]!)).toBeLessThanOrEqual(5)
     expect(evenings.slice(0, evenings.indexOf(start[0]!)).every(e => e.verdict !== 'good')).toBe(true)
+  })
+})
+
+describe('the phase at an instant', () => {
+  it('names the phases around a published lunation (new moon 2024-04-08 18:21 UTC, from memory of the almanac)', () => {
+    expect(phaseNameAt(new Date('2024-04-08T18:21:00Z'))).toBe('new')
+    expect(phaseNameAt(new Date('2024-04-11T18:00:00Z'))).toBe('waxing-crescent')
+    // First quarter about 7.4 days on, full about 14.8 days on (common practice: a quarter of a 29.53-day month).
+    expect(phaseNameAt(new Date('2024-04-16T06:00:00Z'))).toBe('first-quarter')
+    expect(phaseNameAt(new Date('2024-04-23T18:00:00Z'))).toBe('full')
+    expect(phaseNameAt(new Date('2024-04-28T00:00:00Z'))).toBe('waning-gibbous')
   })
 })
