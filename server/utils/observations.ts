@@ -77,6 +77,18 @@ export async function replaceMeasurements(db: Kysely<Database>, observationId: s
   }))).execute()
 }
 
+/**
+ * A sketch in review or in the atlas was judged against its observation's data and circumstances, so that
+ * observation may then be neither changed nor deleted.
+ */
+export async function refuseIfJudged(db: Kysely<Database>, observationId: string, action: 'changed' | 'deleted'): Promise<void> {
+  const judged = await db.selectFrom('sketches').select('id')
+    .where('observation_id', '=', observationId)
+    .where('status', 'in', ['submitted', 'approved'])
+    .executeTakeFirst()
+  if (judged) throw createError({ status: 409, message: `A sketch of this observation is in review or in the atlas; it cannot be ${action}.` })
+}
+
 /** The owner's observation, or 404. */
 export async function ownObservation(userId: string, id: string): Promise<Observation> {
   const row = await useDb().selectFrom('observations').selectAll()

@@ -11,12 +11,7 @@ export default defineEventHandler(async (event) => {
   const input = await readValidatedBody(event, validBody)
   await ownObservation(user.id, id)
   const db = useDb()
-  // A sketch in review or in the atlas was judged against these circumstances; they stay as they are.
-  const judged = await db.selectFrom('sketches').select('id')
-    .where('observation_id', '=', id)
-    .where('status', 'in', ['submitted', 'approved'])
-    .executeTakeFirst()
-  if (judged) throw createError({ status: 409, message: 'A sketch of this observation is in review or in the atlas; it cannot be changed.' })
+  await refuseIfJudged(db, id, 'changed')
   const site = await ownSite(user.id, input.siteId).catch(() => {
     throw createError({ status: 400, message: 'siteId: Choose one of your sites.', data: { fields: { siteId: ['Choose one of your sites.'] } } })
   })
