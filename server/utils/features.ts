@@ -212,16 +212,28 @@ export async function featureAliases(db: Db, id: string): Promise<string[]> {
   return rows.map(r => r.name)
 }
 
-/** Confirmed features within `within`° of the terminator, nearest first. */
-export async function confirmedNearTerminator(colongitudeDeg: number, subSolarLatDeg: number, within = 10) {
-  const rows = await useDb().selectFrom('features')
+export interface PlacedFeature {
+  id: string
+  name: string
+  latitude: number
+  longitude: number
+}
+
+/** Every confirmed, live feature that has a place on the Moon. */
+export async function confirmedFeatures(db: Db): Promise<PlacedFeature[]> {
+  const rows = await db.selectFrom('features')
     .select(['id', 'name', 'latitude', 'longitude'])
     .where('status', '=', 'confirmed')
     .where('merged_into', 'is', null)
     .where('latitude', 'is not', null)
     .execute()
-  return rows
-    .map(f => ({ id: f.id, name: f.name, latitude: f.latitude!, longitude: f.longitude!, distanceDeg: distanceFromTerminator({ lat: f.latitude!, lon: f.longitude! }, colongitudeDeg, subSolarLatDeg) }))
+  return rows.map(f => ({ id: f.id, name: f.name, latitude: f.latitude!, longitude: f.longitude! }))
+}
+
+/** Those within `within`° of the terminator at a colongitude, nearest first. */
+export function nearTerminator(features: PlacedFeature[], colongitudeDeg: number, subSolarLatDeg: number, within = 10) {
+  return features
+    .map(f => ({ ...f, distanceDeg: distanceFromTerminator({ lat: f.latitude, lon: f.longitude }, colongitudeDeg, subSolarLatDeg) }))
     .filter(f => f.distanceDeg <= within)
     .sort((a, b) => a.distanceDeg - b.distanceDeg)
 }

@@ -32,6 +32,13 @@ export async function ownSite(userId: string, siteId: string): Promise<Site> {
   return site
 }
 
+/** The owner's site named in a form: someone else's, or none, is a bad field (400), not a missing page. */
+export async function chosenSite(userId: string, siteId: string): Promise<Site> {
+  return ownSite(userId, siteId).catch(() => {
+    throw createError({ status: 400, message: 'siteId: Choose one of your sites.', data: { fields: { siteId: ['Choose one of your sites.'] } } })
+  })
+}
+
 /** Published entries show a site only to 0.1°, never the owner's precise place. */
 export function roundedCoordinate(value: number): number {
   return Math.round(value * 10) / 10

@@ -126,11 +126,6 @@ export async function parseSketchUpload(event: H3Event, body: Buffer): Promise<S
   return { fields, raster: files.get('raster')?.bytes ?? null }
 }
 
-/** Validates parsed multipart fields and fails the way readValidatedBody does: 400 with data.fields. */
-export function validSketchFields<T>(validate: (input: unknown) => T, fields: Record<string, string>): T {
-  return validated(validate, fields)
-}
-
 export function sketchConflict(current: { version: number, updated_at: string }) {
   return createError({
     status: 409,

@@ -6,5 +6,5 @@ const validQuery = parseWith(TerminatorQuery)
 // looking at tonight.
 export default defineEventHandler(async (event) => {
   const q = await getValidatedQuery(event, validQuery)
-  return confirmedNearTerminator(q.colongitude, q.subSolarLat, q.within)
+  return nearTerminator(await confirmedFeatures(useDb()), q.colongitude, q.subSolarLat, q.within)
 })

@@ -12,9 +12,7 @@ export default defineEventHandler(async (event) => {
   await ownObservation(user.id, id)
   const db = useDb()
   await refuseIfJudged(db, id, 'changed')
-  const site = await ownSite(user.id, input.siteId).catch(() => {
-    throw createError({ status: 400, message: 'siteId: Choose one of your sites.', data: { fields: { siteId: ['Choose one of your sites.'] } } })
-  })
+  const site = await chosenSite(user.id, input.siteId)
   const { fields, measurements } = buildObservation(input, site)
   await db.transaction().execute(async (trx) => {
     await trx.updateTable('observations').set({ ...fields, updated_at: nowIso() })

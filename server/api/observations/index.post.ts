@@ -5,9 +5,7 @@ const validate = parseWith(ObservationBody)
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'learner')
   const input = await readValidatedBody(event, validate)
-  const site = await ownSite(user.id, input.siteId).catch(() => {
-    throw createError({ status: 400, message: 'siteId: Choose one of your sites.', data: { fields: { siteId: ['Choose one of your sites.'] } } })
-  })
+  const site = await chosenSite(user.id, input.siteId)
   const { fields, measurements } = buildObservation(input, site)
   const id = newId()
   const at = nowIso()

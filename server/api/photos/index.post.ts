@@ -11,9 +11,7 @@ export default defineEventHandler(async (event) => {
   const file = files.get('file')
   if (!file) throw createError({ status: 400, message: 'file: Choose a photo to upload.' })
   const fields = validated(validFields, text)
-  const site = await ownSite(user.id, fields.siteId).catch(() => {
-    throw createError({ status: 400, message: 'siteId: Choose one of your sites.' })
-  })
+  const site = await chosenSite(user.id, fields.siteId)
 
   let processed
   try {

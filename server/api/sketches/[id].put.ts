@@ -22,7 +22,7 @@ export default defineEventHandler(async (event): Promise<SketchSaved> => {
     throw createError({ status: 409, message: `This sketch is ${sketch.status} and can no longer be changed.` })
   }
   const upload = await parseSketchUpload(event, await readSketchBody(event, SKETCH_SAVE_MAX_BYTES))
-  const save = validSketchFields(validHead, upload.fields)
+  const save = validated(validHead, upload.fields)
 
   // A retried upload whose first attempt landed, though its answer was lost.
   const landed = await db.selectFrom('sketch_revisions')
@@ -40,7 +40,7 @@ export default defineEventHandler(async (event): Promise<SketchSaved> => {
   rasterWork.catch(() => undefined)
   // The strict shapes schema admits no key it does not know, so the text is stored as sent.
   const shapes = upload.fields.shapes ?? ''
-  validSketchFields(validShapes, { shapes })
+  validated(validShapes, { shapes })
   const store = useObjectStore()
   const keys = await storeRaster(store, sketchObjectPrefix(id, save.saveId), await rasterWork)
   const at = nowIso()
