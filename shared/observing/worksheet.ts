@@ -115,3 +115,22 @@ export function trendNotes(nights: PredictedNight[], clockTime: string): string[
   notes.push('A compass read the same way every night may be off by a steady few degrees; the compass offset estimate removes that, leaving the night-to-night change.')
   return notes
 }
+
+export interface SheetRow {
+  localDate: string
+  predicted: PredictedNight
+  /** The observation logged that night, if any (its id). */
+  observationId: string | null
+}
+
+/**
+ * The rows of the printed sheet: every night of the lunation on which the Moon is above the horizon at the
+ * clock time, filled where an observation was logged and left blank (to be filled in by hand) where not,
+ * and any night logged outside that run.
+ */
+export function sheetRows(nights: PredictedNight[], logged: { id: string, localDate: string }[]): SheetRow[] {
+  const byDate = new Map(logged.map(o => [o.localDate, o.id]))
+  return nights
+    .filter(n => n.altitudeDeg > 0 || byDate.has(n.localDate))
+    .map(n => ({ localDate: n.localDate, predicted: n, observationId: byDate.get(n.localDate) ?? null }))
+}

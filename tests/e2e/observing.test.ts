@@ -1,9 +1,10 @@
-import { readFileSync } from 'node:fs'
+import { execFileSync } from 'node:child_process'
+import { readFileSync, readdirSync, rmSync } from 'node:fs'
 import sharp from 'sharp'
 import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { DEMO, startApp, type RunningApp } from '../support/app'
-import { artifact, launchBrowser, openReady } from '../support/browser'
+import { ARTIFACTS, artifact, launchBrowser, openReady } from '../support/browser'
 
 let app: RunningApp
 let browser: Browser
@@ -26,13 +27,38 @@ afterAll(async () => {
 })
 
 describe('an observing night', () => {
-  it('plans tonight with the cautions, the evening plot and the lunation evenings', async () => {
+  it('plans tonight with the cautions, the night plot and the observing windows', async () => {
     await openReady(page, `${app.url}/tonight?date=2026-11-16`)
-    await page.getByRole('heading', { name: 'Through the evening' }).waitFor()
+    await page.getByRole('heading', { name: 'Through the night' }).waitFor()
     await page.locator('canvas').first().waitFor()
     expect(await page.getByLabel('Observing safely').count()).toBeGreaterThan(0)
     expect(await page.getByText('start the series here').count()).toBe(1)
     await page.screenshot({ path: artifact('tonight.png'), fullPage: true })
+  })
+
+  it('plans a waning evening in the south: only coming windows, the next moonrise, the disk drawn when the Moon is up', async () => {
+    // An invented site near 34° S, 18° E. On 2026-12-02 the Moon is waning, eight days past full (astronomy-engine).
+    const made = await page.request.post(`${app.url}/api/sites`, { data: { name: 'Southern test hill', latitude: -33.93, longitude: 18.47, elevation: 40 } })
+    expect(made.status()).toBe(201)
+    const site = await made.json()
+    await openReady(page, `${app.url}/tonight?siteId=${site.id}&date=2026-12-02`)
+    await page.getByRole('heading', { name: /Observing windows/ }).waitFor()
+    const windows = await page.locator('[data-window]').evaluateAll(items => items.map(i => i.getAttribute('data-window')!))
+    expect(windows).toHaveLength(14)
+    expect(windows.every(w => w.slice(0, 10) >= '2026-12-02')).toBe(true)
+    expect(windows[0]).toMatch(/^2026-12-02 morning/)
+    // The next moonrise, late that evening or after midnight; never the morning's, already past.
+    const moonrise = await page.getByTestId('moonrise').textContent()
+    expect(moonrise).not.toMatch(/this morning/)
+    expect(await page.getByText('Next moonrise').count()).toBe(1)
+    expect(await page.getByTestId('drawn-for').textContent()).toMatch(/when it is up: at nightfall it is still below the horizon/)
+    // No evening-crescent caution on a waning night.
+    expect(await page.getByLabel('Observing safely').getAttribute('data-cautions')).not.toMatch(/evening-crescent/)
+    await page.screenshot({ path: artifact('tonight-south-waning.png'), fullPage: true })
+    await page.getByRole('link', { name: 'Next lunation' }).click()
+    await page.waitForURL(/date=2027-01-01/)
+    await page.getByRole('link', { name: 'Previous lunation' }).waitFor()
+    await page.request.delete(`${app.url}/api/sites/${site.id}`)
   })
 
   it('logs an observation with both measurements and shows predicted values and residuals', async () => {
@@ -71,6 +97,41 @@ describe('an observing night', () => {
     await page.screenshot({ path: artifact('worksheet.png'), fullPage: true })
     await page.emulateMedia({ media: 'print' })
     await page.screenshot({ path: artifact('worksheet-print.png'), fullPage: true })
+    await page.emulateMedia({ media: 'screen' })
+  })
+
+  it('prints a worksheet to hand out on A4 and on US Letter: name, site, lunation, filled and blank rows, charts inside their boxes', async () => {
+    await openReady(page, `${app.url}/worksheet?date=2026-11-18`)
+    await page.getByRole('heading', { name: 'Azimuth night by night' }).waitFor()
+    await page.emulateMedia({ media: 'print' })
+    const sheet = page.getByTestId('print-sheet')
+    await sheet.waitFor()
+    const text = await sheet.textContent()
+    expect(text).toMatch(/Observer/)
+    expect(text).toMatch(/Site/)
+    expect(text).toMatch(/new moon .* to new moon/)
+    expect(await sheet.locator('tr.logged').count()).toBeGreaterThan(0)
+    expect(await sheet.locator('tr.to-come').count()).toBeGreaterThan(0)
+    // Each chart stays inside its figure, and its measured points are dark ink on white.
+    for (const figure of await sheet.locator('.sheet-charts figure').all()) {
+      const box = (await figure.boundingBox())!
+      const svg = (await figure.locator('svg').boundingBox())!
+      expect(svg.x).toBeGreaterThanOrEqual(box.x - 0.5)
+      expect(svg.x + svg.width).toBeLessThanOrEqual(box.x + box.width + 0.5)
+    }
+    const fill = await sheet.locator('.sheet-charts circle.measured').first().evaluate(c => getComputedStyle(c).fill)
+    expect(fill).toBe('rgb(0, 0, 0)')
+    for (const format of ['A4', 'Letter'] as const) {
+      const pdf = artifact(`worksheet-${format}.pdf`)
+      await page.pdf({ path: pdf, format, printBackground: true })
+      // Render each page to PNG to look at (poppler's pdftoppm); the sheet fits on one or two pages.
+      const prefix = artifact(`worksheet-${format}`)
+      for (const old of readdirSync(ARTIFACTS).filter(f => f.startsWith(`worksheet-${format}-`))) rmSync(artifact(old))
+      execFileSync('pdftoppm', ['-png', '-r', '60', pdf, prefix])
+      const pages = readdirSync(ARTIFACTS).filter(f => f.startsWith(`worksheet-${format}-`) && f.endsWith('.png'))
+      expect(pages.length).toBeGreaterThanOrEqual(1)
+      expect(pages.length).toBeLessThanOrEqual(2)
+    }
     await page.emulateMedia({ media: 'screen' })
   })
 

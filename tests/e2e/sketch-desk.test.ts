@@ -240,6 +240,32 @@ describe('touch', () => {
   })
 })
 
+describe('the offline worker', () => {
+  it('opens the desk, reloads it and opens it again directly, with a worker and cache named after this build', async () => {
+    const context = await signedIn()
+    const id = await newSketch(context)
+    const errors: string[] = []
+    let page = await openDesk(context, id)
+    page.on('console', m => m.type() === 'error' && errors.push(m.text()))
+    await expect.poll(() => page.evaluate(() => Boolean(navigator.serviceWorker.controller)), { timeout: 20_000 }).toBe(true)
+    const buildId = await page.evaluate(() => (window as unknown as { __NUXT__: { config: { app: { buildId: string } } } }).__NUXT__.config.app.buildId)
+    expect(buildId).toMatch(/\w/)
+    expect(await page.evaluate(() => navigator.serviceWorker.controller!.scriptURL)).toContain(`build=${buildId}`)
+    await expect.poll(() => page.evaluate(() => caches.keys()), { timeout: 20_000 }).toEqual([`shadowline-sketch-pages-${buildId}`])
+
+    await page.reload()
+    await page.getByTestId('sketch-canvas').waitFor()
+    await expect.poll(() => syncState(page)).toBe('saved')
+    await page.close()
+    page = await openDesk(context, id)
+    page.on('console', m => m.type() === 'error' && errors.push(m.text()))
+    await page.reload()
+    await page.getByTestId('sketch-canvas').waitFor()
+    expect(errors.filter(e => /MIME|Failed to fetch dynamically imported module/i.test(e))).toEqual([])
+    await context.close()
+  })
+})
+
 describe('never losing a stroke', () => {
   it('keeps strokes drawn offline, still has them after an offline reload, and saves them once back online', async () => {
     const context = await signedIn()

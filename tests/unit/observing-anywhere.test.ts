@@ -8,7 +8,7 @@ import { computeNight } from '../../shared/observing/night'
 import { planNight } from '../../shared/observing/tonight'
 import { unwrapDegrees } from '../../shared/observing/unwrap'
 import { eveningWindowStart, observingWindows } from '../../shared/observing/windows'
-import { lunationNights, predictedAtClockTime, trendNotes } from '../../shared/observing/worksheet'
+import { lunationNights, predictedAtClockTime, sheetRows, trendNotes } from '../../shared/observing/worksheet'
 import { lunarCircumstances, sunCaution } from '../../shared/lunar'
 import { LUNATION_FROM, SITES, siteEntries } from '../support/observing-sites'
 
@@ -226,5 +226,20 @@ describe('cautions chosen by the situation', () => {
   it('the Moon within 15° of the Sun is urgent whatever the hour', () => {
     const list = cautionsFor({ sunAltitudeDeg: -8, moonSunSeparationDeg: 12, illuminatedFraction: 0.02, waxing: true, evening: true })
     expect(list[0]).toMatchObject({ kind: 'sun-near', urgent: true })
+  })
+})
+
+describe('the printed sheet\'s rows', () => {
+  it('has a row for every night the Moon is up at the clock time, filled where logged, blank where still to come', () => {
+    const site = SITES['mid-south']
+    const { dates } = lunationNights(new Date('2026-11-12T12:00:00Z'), site.timeZone)
+    const nights = predictedAtClockTime(dates, '20:30', site)
+    const rows = sheetRows(nights, [{ id: 'a', localDate: '2026-11-12' }, { id: 'b', localDate: '2026-12-01' }])
+    // 2026-12-01 at 20:30 the waning Moon is still below the horizon, yet it was logged (a cloud-out note, say).
+    expect(rows.find(r => r.localDate === '2026-12-01')?.observationId).toBe('b')
+    expect(rows.find(r => r.localDate === '2026-11-12')?.observationId).toBe('a')
+    const blank = rows.filter(r => r.observationId === null)
+    expect(blank.length).toBeGreaterThan(10)
+    expect(blank.every(r => r.predicted.altitudeDeg > 0)).toBe(true)
   })
 })
