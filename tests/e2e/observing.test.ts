@@ -135,6 +135,32 @@ describe('an observing night', () => {
     await page.emulateMedia({ media: 'screen' })
   })
 
+  it('says what is wrong in the form\'s words, warns of a Moon below the horizon until confirmed, and deletes with feedback', async () => {
+    await openReady(page, `${app.url}/observations/new`)
+    // 2026-11-18 09:00 at the demo site (invented, mid-north): the young crescent is below the horizon.
+    await page.getByLabel('Date at the site').fill('2026-11-18')
+    await page.getByLabel(/^Time at the site/).fill('09:00')
+    await page.getByTestId('plausibility').waitFor()
+    expect(await page.getByTestId('plausibility').textContent()).toMatch(/below the horizon at this site/)
+    await page.getByRole('button', { name: 'Save observation' }).click()
+    await page.getByText('Confirm the date and time above, or correct them, to save.').waitFor()
+    expect(page.url()).toMatch(/\/observations\/new$/)
+    await page.getByLabel('The date and time are right; save it as it is.').check()
+    // A clinometer reading out of range: the message uses the form's label, never the field's name.
+    await page.getByLabel('Clinometer reading (°)').fill('500')
+    await page.getByRole('button', { name: 'Save observation' }).click()
+    const notice = page.getByRole('alert').filter({ hasText: /Clinometer reading/ })
+    await notice.first().waitFor()
+    expect(await page.locator('main').textContent()).not.toMatch(/clinometerReadingDeg/)
+    await page.getByLabel('Clinometer reading (°)').fill('')
+    await page.getByRole('button', { name: 'Save observation' }).click()
+    await page.waitForURL(/\/observations\/[0-9a-f-]{36}$/)
+    page.once('dialog', dialog => dialog.accept())
+    await page.getByRole('button', { name: 'Delete' }).click()
+    await page.waitForURL(/\/observations\?deleted=/)
+    await page.getByText('The observation of 2026-11-18 09:00 was deleted, with its measurements.').waitFor()
+  })
+
   it('exports the list as CSV with a header and one row per observation', async () => {
     await openReady(page, `${app.url}/observations`)
     const total = Number((await page.getByText(/observations$/).textContent())!.match(/(\d+) observations/)![1])

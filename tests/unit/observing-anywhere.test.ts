@@ -5,6 +5,7 @@ import { localDateTimeOf, zonedInstant } from '../../shared/observing/clock'
 import { clockOnNight } from '../../shared/observing/format'
 import { moonPass } from '../../shared/observing/moonpass'
 import { computeNight } from '../../shared/observing/night'
+import { plausibilityWarnings } from '../../shared/observing/plausibility'
 import { planNight } from '../../shared/observing/tonight'
 import { unwrapDegrees } from '../../shared/observing/unwrap'
 import { eveningWindowStart, observingWindows } from '../../shared/observing/windows'
@@ -241,5 +242,23 @@ describe('the printed sheet\'s rows', () => {
     const blank = rows.filter(r => r.observationId === null)
     expect(blank.length).toBeGreaterThan(10)
     expect(blank.every(r => r.predicted.altitudeDeg > 0)).toBe(true)
+  })
+})
+
+describe('plausibility of an observation\'s time', () => {
+  it('warns (not refuses) when the Moon is below the horizon, or the time is still to come', () => {
+    const site = SITES['mid-south']
+    // 2026-12-02 20:00 SAST: the waning Moon has not yet risen (SunCalc below −10°).
+    const at = zonedInstant('2026-12-02', '20:00', site.timeZone)
+    expect(sunCalcMoonAlt(at, site)).toBeLessThan(-10)
+    const night = computeNight(at, site)
+    const now = new Date('2026-12-03T12:00:00Z')
+    expect(plausibilityWarnings(at, night.altitudeDeg, now).map(w => w.kind)).toEqual(['below-horizon'])
+    expect(plausibilityWarnings(at, night.altitudeDeg, now)[0]!.text).toMatch(/below the horizon/)
+    // The same night at 04:00 the next morning, logged a day early: the Moon is up, the time is to come.
+    const morning = zonedInstant('2026-12-03', '04:00', site.timeZone)
+    expect(sunCalcMoonAlt(morning, site)).toBeGreaterThan(10)
+    expect(plausibilityWarnings(morning, computeNight(morning, site).altitudeDeg, new Date('2026-12-02T12:00:00Z')).map(w => w.kind)).toEqual(['future'])
+    expect(plausibilityWarnings(morning, computeNight(morning, site).altitudeDeg, now)).toEqual([])
   })
 })
