@@ -180,6 +180,8 @@ describe('an observing night', () => {
     })))
     await openReady(page, `${app.url}/photos`)
     await page.getByLabel('Photos').setInputFiles(files)
+    // Before anything is uploaded, the page says that a photo far from any observation starts one.
+    expect(await page.getByTestId('photo-creates-observation').textContent()).toMatch(/starts a new observation/)
     await page.getByRole('button', { name: 'Upload' }).click()
     await page.locator('progress').waitFor()
     await page.getByText('moon-2.jpg: taken 2026-11-19 18:40').waitFor()
@@ -188,6 +190,61 @@ describe('an observing night', () => {
     await page.getByRole('button', { name: 'Next photo' }).click()
     await page.getByText(/2026-11-19 18:40 · Brackenfield/).waitFor()
     await page.screenshot({ path: artifact('photos.png'), fullPage: true })
+  })
+
+  it('keeps night mode on the 404 and "not for this account" pages, and on sliders and progress bars', async () => {
+    const night = await browser.newPage({ viewport: { width: 1280, height: 800 } })
+    await night.context().addCookies(await page.context().cookies())
+    await night.addInitScript(() => localStorage.setItem('shadowline.display', JSON.stringify({ night: true, brightness: 1 })))
+    const isNight = () => night.evaluate(() => ({
+      night: document.documentElement.classList.contains('night'),
+      background: getComputedStyle(document.body).backgroundColor,
+    }))
+    await night.goto(`${app.url}/no-such-page`)
+    await night.getByRole('heading', { name: 'Nothing here' }).waitFor()
+    expect(await isNight()).toEqual({ night: true, background: 'rgb(0, 0, 0)' })
+    await night.goto(`${app.url}/admin/users`)
+    await night.getByRole('heading', { name: 'Not for this account' }).waitFor()
+    expect(await isNight()).toEqual({ night: true, background: 'rgb(0, 0, 0)' })
+    // Sliders and progress bars take the red accent, not the browser's blue or grey.
+    await openReady(night, `${app.url}/photos`)
+    const accent = await night.evaluate(() => {
+      const probe = (html: string) => {
+        const holder = document.createElement('div')
+        holder.innerHTML = html
+        document.body.append(holder)
+        const colour = getComputedStyle(holder.firstElementChild!).accentColor
+        holder.remove()
+        return colour
+      }
+      return { range: probe('<input type="range">'), progress: probe('<progress value="0.5"></progress>') }
+    })
+    expect(accent).toEqual({ range: 'rgb(230, 50, 36)', progress: 'rgb(230, 50, 36)' })
+    await night.screenshot({ path: artifact('night-photos.png'), fullPage: true })
+    await night.close()
+  })
+
+  it('fits the whole navigation at 1280 px for an administrator, and shows on a phone that it scrolls', async () => {
+    const admin = await browser.newPage({ viewport: { width: 1280, height: 800 } })
+    await openReady(admin, `${app.url}/sign-in`)
+    await admin.getByLabel('E-mail').fill(DEMO.admin.email)
+    await admin.getByLabel('Password').fill(DEMO.admin.password)
+    await admin.getByRole('button', { name: 'Sign in' }).click()
+    await admin.getByText('Welcome back').waitFor()
+    const nav = admin.getByTestId('main-nav')
+    expect(await nav.getByRole('link', { name: 'Caught mail' }).count()).toBe(1)
+    const fits = () => nav.evaluate((el) => {
+      const links = [...el.querySelectorAll('a')].map(a => a.getBoundingClientRect())
+      return { overflow: el.scrollWidth - el.clientWidth, allInView: links.every(r => r.left >= 0 && r.right <= window.innerWidth) }
+    })
+    expect(await fits()).toEqual({ overflow: 0, allInView: true })
+    await admin.screenshot({ path: artifact('nav-admin-1280.png') })
+    await admin.setViewportSize({ width: 390, height: 844 })
+    const phone = await nav.evaluate(el => ({ scrolls: el.scrollWidth > el.clientWidth, mask: getComputedStyle(el).maskImage }))
+    expect(phone.scrolls).toBe(true)
+    expect(phone.mask).toMatch(/gradient/)
+    await admin.screenshot({ path: artifact('nav-admin-phone.png') })
+    await admin.close()
   })
 
   it('manages sites', async () => {

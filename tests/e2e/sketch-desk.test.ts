@@ -266,6 +266,26 @@ describe('the offline worker', () => {
   })
 })
 
+describe('naming a place by touch', () => {
+  it('after the pen has been used, a finger tap with "Name a place" still pins', async () => {
+    const context = await signedIn({ hasTouch: true })
+    const id = await newSketch(context)
+    const page = await openDesk(context, id)
+    const cdp = await context.newCDPSession(page)
+    await drawWithPen(page, cdp, Array.from({ length: 10 }, (_, i) => [800 + 30 * i, 1200, 0.5] as [number, number, number]))
+    await page.getByRole('button', { name: /Pen only: fingers move the view/ }).waitFor()
+    await page.getByRole('button', { name: 'Name a place', exact: true }).click()
+    const at = await screen(page, 1100, 900)
+    const touch = (type: string, points: { x: number, y: number }[]) =>
+      cdp.send('Input.dispatchTouchEvent', { type, touchPoints: points.map((p, i) => ({ ...p, id: i + 1 })) } as never)
+    await touch('touchStart', [at])
+    await touch('touchEnd', [])
+    await page.getByRole('dialog').waitFor({ timeout: 5_000 })
+    expect(await strokeCount(page)).toBe(1)
+    await context.close()
+  })
+})
+
 describe('never losing a stroke', () => {
   it('keeps strokes drawn offline, still has them after an offline reload, and saves them once back online', async () => {
     const context = await signedIn()
