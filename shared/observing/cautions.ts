@@ -60,7 +60,7 @@ function caution(kind: CautionKind, urgent = false): Caution {
 
 /** The standing cautions, for pages that do not know the moment (the situational ones, Sun up or near, are left out). */
 export function allCautions(): Caution[] {
-  return (['never-at-sun', 'evening-crescent', 'morning-crescent', 'bright-moon', 'night-outdoors', 'local-rules'] as const)
+  return (['never-at-sun', 'night-outdoors', 'evening-crescent', 'morning-crescent', 'bright-moon', 'local-rules'] as const)
     .map(kind => caution(kind))
 }
 

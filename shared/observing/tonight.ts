@@ -120,7 +120,7 @@ export interface NightPlan {
   caution: ReturnType<typeof sunCaution>
   samples: EveningSample[]
   nextPhases: { kind: PhaseEvent['kind'], at: string }[]
-  /** The observing windows of the next 14 days from the chosen date. */
+  /** The observing windows of the next 14 days from the chosen night (its evening, or the next morning) on. */
   windows: ObservingWindow[]
   /** The same date one lunation earlier and later, to step through lunations. */
   lunationStep: { previous: string, next: string }
@@ -189,7 +189,8 @@ export function planNight(localDate: string, site: ObservingSite): NightPlan {
     caution: sunCaution(at, place),
     samples,
     nextPhases: phaseEvents(noon, new Date(noon.getTime() + 32 * 86_400_000)).map(e => ({ kind: e.kind, at: e.at.toISOString() })),
-    windows: observingWindows(localDate, WINDOW_DAYS, site),
+    // The night's own windows onward: the chosen date's morning is already past when its night begins.
+    windows: observingWindows(localDate, WINDOW_DAYS + 1, site).filter(w => Date.parse(w.at) > noon.getTime()).slice(0, WINDOW_DAYS),
     lunationStep: { previous: step(-1), next: step(+1) },
   }
 }

@@ -102,8 +102,9 @@ describe('Tonight on the waning evening of 2026-12-02 near 34° S, 18° E', () =
 
   it('lists only windows on or after the chosen date, mornings first, and steps a lunation either way', () => {
     expect(plan.windows).toHaveLength(14)
-    expect(plan.windows.every(w => w.localDate >= '2026-12-02')).toBe(true)
-    expect(plan.windows[0]!.kind).toBe('morning')
+    // From the night of the 2nd on: its own morning (the 3rd, before dawn) first, nothing earlier.
+    expect(plan.windows.every(w => Date.parse(w.at) > Date.parse(plan.nightfall) - 12 * HOUR)).toBe(true)
+    expect(plan.windows[0]).toMatchObject({ localDate: '2026-12-03', kind: 'morning' })
     expect(plan.lunationStep.previous).toBe('2026-11-02')
     expect(plan.lunationStep.next).toBe('2027-01-01')
   })
