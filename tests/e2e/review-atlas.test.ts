@@ -109,6 +109,7 @@ describe('from the eyepiece to the atlas', () => {
     await openReady(visitor, `${app.url}/atlas?colongitudeMin=400&colongitudeMax=10`)
     await visitor.getByText(/Colongitude runs from 0° to 360°/).waitFor()
     expect(await visitor.locator('main').textContent()).not.toMatch(/\[GET\]|Validation Error/)
+    await openReady(visitor, `${app.url}/atlas?phase=${phaseName}`)
     await visitor.locator(`a[href="/atlas/${sketchId}"]`).first().click()
     await visitor.getByRole('heading', { name: 'Features pinned' }).waitFor()
     await visitor.getByRole('link', { name: 'Lamplight bay' }).waitFor()
