@@ -45,6 +45,8 @@ describe('from the eyepiece to the atlas', () => {
 
     await openReady(observer.page, `${app.url}/entries`)
     const entry = observer.page.locator(`[data-entry="${sketchId}"]`)
+    // The saved sketch is shown over the outline of its disk, not as strokes on black.
+    expect(await entry.locator('img').first().evaluate(img => getComputedStyle(img).backgroundImage)).toMatch(/radial-gradient/)
     await entry.getByRole('button', { name: 'Submit for review' }).click()
     await entry.getByText('Waiting for review').waitFor()
 
@@ -112,6 +114,7 @@ describe('from the eyepiece to the atlas', () => {
     await openReady(visitor, `${app.url}/atlas?phase=${phaseName}`)
     await visitor.locator(`a[href="/atlas/${sketchId}"]`).first().click()
     await visitor.getByRole('heading', { name: 'Features pinned' }).waitFor()
+    expect(await visitor.getByRole('img', { name: /^Sketch by/ }).evaluate(img => getComputedStyle(img).backgroundImage)).toMatch(/radial-gradient/)
     await visitor.getByRole('link', { name: 'Lamplight bay' }).waitFor()
     expect(await visitor.getByText(/% of the disk is lit/).count()).toBe(1)
     await visitor.screenshot({ path: artifact('atlas-entry.png'), fullPage: true })
