@@ -244,6 +244,11 @@ describe('an observing night', () => {
     const phone = await nav.evaluate(el => ({ scrolls: el.scrollWidth > el.clientWidth, mask: getComputedStyle(el).maskImage }))
     expect(phone.scrolls).toBe(true)
     expect(phone.mask).toMatch(/gradient/)
+    // The page itself never scrolls sideways, night mode's brightness slider included.
+    await admin.getByRole('button', { name: /^Night/ }).first().click()
+    await admin.getByLabel('Screen brightness').waitFor()
+    expect(await admin.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390)
+    await admin.screenshot({ path: artifact('nav-admin-phone-night.png') })
     await admin.screenshot({ path: artifact('nav-admin-phone.png') })
     await admin.close()
   })
