@@ -7,7 +7,9 @@
 // a slow mobile network (150 ms latency, 1.6 Mbit/s down, 750 kbit/s up), all through the DevTools protocol
 // (the "slow 4G" profile of Lighthouse's mobile runs). Every run is a first visit: a new browser context with
 // an empty cache. For each page, medians over the runs of:
-// - JS bytes and total bytes on the wire (encoded bytes as received, headers included, from Network events);
+// - JS bytes and total bytes on the wire (encoded bytes as received, headers included, from Network events)
+//   until the network is idle, so including the chunks Nuxt prefetches for linked pages; and, apart, the JS
+//   requested before the page answered a tap (Resource Timing);
 // - which libraries arrived (found by a string each one carries in its code: Konva, Chart.js, zod,
 //   astronomy-engine);
 // - largest contentful paint and layout shift (the browser's own LCP and layout-shift entries; layout shift
@@ -51,10 +53,12 @@ interface PageCase {
 
 interface Run {
   jsBytes: number
+  jsBytesBeforeTapReady: number
   totalBytes: number
   requests: number
   libraries: Library[]
   lcpMs: number
+  lcpElement: string
   cls: number
   tapReadyMs: number
   uncompressedAssets: string[]
@@ -70,9 +74,12 @@ const round = (value: number, places = 0) => Math.round(value * 10 ** places) / 
 // Installed before any page script: records the moment the app takes over, and keeps the LCP and layout
 // shift entries (buffered observers would do too; this keeps them after a soft navigation as well).
 const PROBE = `
-  window.__weight = { lcp: 0, shifts: [], hydratedAt: null }
+  window.__weight = { lcp: 0, lcpElement: '', shifts: [], hydratedAt: null }
   new PerformanceObserver((list) => {
-    for (const entry of list.getEntries()) window.__weight.lcp = entry.startTime
+    for (const entry of list.getEntries()) {
+      window.__weight.lcp = entry.startTime
+      window.__weight.lcpElement = (entry.element ? entry.element.tagName.toLowerCase() : '?') + (entry.url ? ' ' + new URL(entry.url).pathname : '')
+    }
   }).observe({ type: 'largest-contentful-paint', buffered: true })
   new PerformanceObserver((list) => {
     for (const entry of list.getEntries()) {
@@ -90,6 +97,7 @@ const PROBE = `
 
 interface Probe {
   lcp: number
+  lcpElement: string
   shifts: { at: number, value: number }[]
   hydratedAt: number | null
 }
@@ -120,11 +128,11 @@ async function measure(context: BrowserContext, url: string): Promise<Run> {
   await cdp.send('Network.emulateNetworkConditions', NETWORK)
   await cdp.send('Emulation.setCPUThrottlingRate', { rate: CPU_SLOWDOWN })
 
-  const responses = new Map<string, { url: string, type: string, encoding: string }>()
+  const responses = new Map<string, { url: string, type: string, encoding: string, length: number }>()
   const finished: { id: string, bytes: number }[] = []
   cdp.on('Network.responseReceived', (event) => {
     const headers = Object.fromEntries(Object.entries(event.response.headers).map(([k, v]) => [k.toLowerCase(), String(v)]))
-    responses.set(event.requestId, { url: event.response.url, type: event.type, encoding: headers['content-encoding'] ?? '' })
+    responses.set(event.requestId, { url: event.response.url, type: event.type, encoding: headers['content-encoding'] ?? '', length: Number(headers['content-length'] ?? 0) })
   })
   cdp.on('Network.loadingFinished', (event) => {
     finished.push({ id: event.requestId, bytes: event.encodedDataLength })
@@ -136,6 +144,15 @@ async function measure(context: BrowserContext, url: string): Promise<Run> {
   await page.waitForLoadState('networkidle', { timeout: 120_000 })
   // LCP stops at the first input; read it before anything touches the page.
   const probe = await page.evaluate(() => (window as unknown as { __weight: Probe }).__weight)
+  // What the page needed before it answered a tap, apart from what it fetched afterwards for the pages it
+  // links to (Nuxt prefetches those in idle time).
+  const timings = await page.evaluate(() => performance.getEntriesByType('resource').map((entry) => {
+    const resource = entry as PerformanceResourceTiming
+    return { path: new URL(resource.name).pathname, startTime: resource.startTime, transferSize: resource.transferSize }
+  }))
+  const jsBytesBeforeTapReady = timings
+    .filter(t => t.path.endsWith('.js') && t.startTime < (probe.hydratedAt ?? Infinity))
+    .reduce((sum, t) => sum + t.transferSize, 0)
 
   let jsBytes = 0
   let totalBytes = 0
@@ -146,7 +163,9 @@ async function measure(context: BrowserContext, url: string): Promise<Run> {
     if (!response) continue
     totalBytes += bytes
     const path = new URL(response.url).pathname
-    if (path.startsWith('/_nuxt/') && /\.(js|css|woff2?)$/.test(path) && !response.encoding) uncompressedAssets.push(path)
+    // Text assets of 1 KB or more should come compressed (the built server skips smaller ones; WOFF2 is
+    // compressed inside).
+    if (path.startsWith('/_nuxt/') && /\.(js|css)$/.test(path) && !response.encoding && response.length >= 1024) uncompressedAssets.push(path)
     if (response.type !== 'Script') continue
     jsBytes += bytes
     const { body, base64Encoded } = await cdp.send('Network.getResponseBody', { requestId: id })
@@ -158,10 +177,12 @@ async function measure(context: BrowserContext, url: string): Promise<Run> {
   await page.close()
   return {
     jsBytes,
+    jsBytesBeforeTapReady,
     totalBytes,
     requests: finished.length,
     libraries: [...libraries].sort(),
     lcpMs: probe.lcp,
+    lcpElement: probe.lcpElement,
     cls: cumulativeShift(probe.shifts),
     tapReadyMs: probe.hydratedAt ?? Number.NaN,
     uncompressedAssets,
@@ -212,15 +233,17 @@ async function main() {
         signedIn: item.signedIn,
         runs: RUNS,
         medianJsKB: round(median(runs.map(r => r.jsBytes)) / 1024, 1),
+        medianJsBeforeTapReadyKB: round(median(runs.map(r => r.jsBytesBeforeTapReady)) / 1024, 1),
         medianTotalKB: round(median(runs.map(r => r.totalBytes)) / 1024, 1),
         medianRequests: median(runs.map(r => r.requests)),
         librariesLoaded: [...new Set(runs.flatMap(r => r.libraries))].sort(),
         konvaLoaded: runs.some(r => r.libraries.includes('konva')),
         medianLcpMs: round(median(runs.map(r => r.lcpMs))),
+        lcpElements: [...new Set(runs.map(r => r.lcpElement))],
         medianCls: round(median(runs.map(r => r.cls)), 4),
         worstCls: round(Math.max(...runs.map(r => r.cls)), 4),
         medianTapReadyMs: round(median(runs.map(r => r.tapReadyMs))),
-        uncompressedAssets: [...new Set(runs.flatMap(r => r.uncompressedAssets))].length,
+        uncompressedTextAssets: [...new Set(runs.flatMap(r => r.uncompressedAssets))],
       }
       pages[item.name] = figures
       medians[item.name] = { jsBytes: median(runs.map(r => r.jsBytes)), lcpMs: figures.medianLcpMs, cls: figures.worstCls }
