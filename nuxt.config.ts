@@ -54,6 +54,11 @@ export default defineNuxtConfig({
   },
   srcDir: '.',
   serverDir: 'server',
+  experimental: {
+    // Links fetch the code of the page they lead to when touched or focused, not as soon as they scroll
+    // into view: on a phone on a slow or metered connection, a page downloads what it shows.
+    defaults: { nuxtLink: { prefetchOn: { visibility: false, interaction: true } } },
+  },
   compatibilityDate: '2026-11-01',
   nitro: {
     experimental: { tasks: false },

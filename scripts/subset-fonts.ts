@@ -11,10 +11,7 @@
 import { mkdirSync, readFileSync, writeFileSync } from 'node:fs'
 import { createRequire } from 'node:module'
 import { resolve } from 'node:path'
-import subsetFontUntyped from 'subset-font'
-
-type SubsetFont = (font: Buffer, text: string, options: { targetFormat: 'woff2' }) => Promise<Buffer>
-const subsetFont = subsetFontUntyped as SubsetFont
+import subsetFont from 'subset-font'
 
 const ROOT = resolve(import.meta.dirname, '..')
 const OUT = resolve(ROOT, 'assets/fonts')
