@@ -166,7 +166,8 @@ async function measure(context: BrowserContext, url: string): Promise<Run> {
     // Text assets of 1 KB or more should come compressed (the built server skips smaller ones; WOFF2 is
     // compressed inside).
     if (path.startsWith('/_nuxt/') && /\.(js|css)$/.test(path) && !response.encoding && response.length >= 1024) uncompressedAssets.push(path)
-    if (response.type !== 'Script') continue
+    // By name, not by the request's type: a <link rel="prefetch"> of a chunk is typed "Other".
+    if (!path.endsWith('.js')) continue
     jsBytes += bytes
     const { body, base64Encoded } = await cdp.send('Network.getResponseBody', { requestId: id })
     const text = base64Encoded ? Buffer.from(body, 'base64').toString('utf8') : body

@@ -1,6 +1,6 @@
 // Writes the display font the app serves: Crimson Pro (SIL Open Font License 1.1, from @fontsource/crimson-pro)
 // cut down to the one weight and the characters the interface sets in it, and the @font-face rules for it.
-//   npm run fonts   → assets/fonts/crimson-pro-400-core.woff2 and assets/fonts/crimson-pro.css
+//   npm run fonts   → assets/fonts/crimson-pro-400-core.woff2, assets/fonts/crimson-pro.css and the licence
 //
 // Crimson Pro sets headings, the brand and a few figures, all at weight 400 (Tailwind's preflight makes
 // headings inherit the body weight, and no display text is bold or italic). The core file holds the
@@ -8,7 +8,7 @@
 // prints (dashes, curly quotes, ellipsis, the middle dot, degree, prime, minus). A name with a letter outside
 // it, in a user's heading, takes that letter from Crimson Pro's latin-ext file, which the browser fetches
 // only when such a letter is on the page (unicode-range); anything further falls back to Georgia.
-import { mkdirSync, readFileSync, writeFileSync } from 'node:fs'
+import { copyFileSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs'
 import { createRequire } from 'node:module'
 import { resolve } from 'node:path'
 import subsetFont from 'subset-font'
@@ -64,6 +64,8 @@ async function main() {
 }
 `
   writeFileSync(resolve(OUT, 'crimson-pro.css'), css)
+  // The cut-down font is a modified version under the same licence, which travels with it.
+  copyFileSync(require.resolve('@fontsource/crimson-pro/LICENSE'), resolve(OUT, 'OFL.txt'))
   console.log(`core: ${source.length} → ${core.length} bytes; wrote ${OUT}`)
 }
 
