@@ -92,6 +92,27 @@ describe('each page loads what it uses', () => {
   })
 })
 
+describe('the display font', () => {
+  it('is preloaded where a heading is on the first screen, and not on the sketch desk', async () => {
+    const preload = /<link rel="preload" as="font" type="font\/woff2" href="(\/_nuxt\/crimson-pro-400-core\.[\w-]+\.woff2)"/
+    const home = await (await fetch(`${app.url}/`)).text()
+    const href = preload.exec(home)?.[1]
+    expect(href).toBeTruthy()
+    // The stylesheet's @font-face names the same file, so the browser fetches it once.
+    const css = await (await fetch(app.url + /<link rel="stylesheet" href="([^"]+)"/.exec(home)![1]!)).text()
+    expect(css.includes(`url(./${href!.split('/').pop()})`)).toBe(true)
+    expect(await (await fetch(`${app.url}/atlas/${entryId}`)).text()).toMatch(preload)
+
+    const context = await browser.newContext()
+    expect((await context.request.post(`${app.url}/api/auth/sign-in`, { data: DEMO.observer })).status()).toBe(200)
+    const sketches = await (await context.request.get(`${app.url}/api/sketches`)).json() as { items: { id: string }[] }
+    const desk = await context.request.get(`${app.url}/sketches/${sketches.items[0]!.id}`, { maxRedirects: 0 })
+    expect(desk.status()).toBe(200) // the desk itself, not a redirect to sign in
+    expect(await desk.text()).not.toMatch(/rel="preload" as="font"/)
+    await context.close()
+  })
+})
+
 describe('compressed, cacheable assets', () => {
   it('serves the built JavaScript as brotli or gzip as the browser accepts, cached as immutable', async () => {
     const html = await (await fetch(`${app.url}/`)).text()
