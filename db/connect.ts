@@ -13,15 +13,9 @@ export interface DatabaseConfig {
 // Kysely renders for both SQLite and PostgreSQL.
 async function createDialect(config: DatabaseConfig): Promise<Dialect> {
   if (/^postgres(ql)?:\/\//.test(config.url)) {
-    // PostgreSQL needs the `pg` package, installed only by deployments that use it.
-    const pgModule = 'pg'
-    const pg = await import(/* @vite-ignore */ pgModule).catch(() => {
-      throw new Error('NUXT_DATABASE_URL points at PostgreSQL: install the "pg" package (npm i pg) to use it.')
-    }) as { default: { Pool: new (options: { connectionString: string, max: number }) => unknown } }
+    const { default: pg } = await import('pg')
     const { PostgresDialect } = await import('kysely')
-    return new PostgresDialect({
-      pool: new pg.default.Pool({ connectionString: config.url, max: 10 }) as never,
-    })
+    return new PostgresDialect({ pool: new pg.Pool({ connectionString: config.url, max: 10 }) })
   }
   const { default: SQLite } = await import('better-sqlite3')
   const file = config.url === ':memory:'

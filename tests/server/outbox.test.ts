@@ -5,13 +5,13 @@ import type { AddressInfo } from 'node:net'
 import { createServer } from 'node:net'
 import type { Kysely } from 'kysely'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createDatabase } from '../../db/connect'
-import { migrateToLatest } from '../../db/migrate'
 import type { Database } from '../../db/schema'
 import { startMailCatcher } from '../../server/utils/embedded'
+import { openTestDatabase } from '../support/database'
 import { createMailTransport, deliverDueMail, enqueueMail, OUTBOX_MAX_ATTEMPTS, retryDelayMs } from '../../server/utils/mail'
 
 let db: Kysely<Database>
+let closeDb: () => Promise<void>
 const dir = mkdtempSync(join(tmpdir(), 'shadowline-mail-'))
 
 /** A port with nothing listening on it: an SMTP server that is down. */
@@ -24,11 +24,10 @@ async function closedPort(): Promise<number> {
 }
 
 beforeAll(async () => {
-  db = await createDatabase({ url: ':memory:', dataDir: dir })
-  await migrateToLatest(db)
+  ;({ db, close: closeDb } = await openTestDatabase())
 })
 afterAll(async () => {
-  await db?.destroy()
+  await closeDb?.()
   rmSync(dir, { recursive: true, force: true })
 })
 
