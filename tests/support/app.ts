@@ -12,6 +12,8 @@ const entry = join(root, '.output/server/index.mjs')
 export interface RunningApp {
   url: string
   dataDir: string
+  /** What the server has printed so far. */
+  output(): string
   stop(): Promise<void>
 }
 
@@ -21,7 +23,7 @@ export interface RunningApp {
  * TEST_POSTGRES_URL set (scripts/run-tests.mjs does) the app gets a fresh
  * PostgreSQL database instead of its SQLite file.
  */
-export async function startApp(env: Record<string, string> = {}): Promise<RunningApp> {
+export async function startApp(env: Record<string, string> = {}, options: { healthy?: boolean } = {}): Promise<RunningApp> {
   if (!existsSync(entry)) throw new Error('Build the app first: npm run build')
   const port = await getRandomPort('127.0.0.1')
   const dataDir = mkdtempSync(join(tmpdir(), 'shadowline-test-'))
@@ -58,7 +60,8 @@ export async function startApp(env: Record<string, string> = {}): Promise<Runnin
 
   const deadline = Date.now() + 60_000
   for (;;) {
-    const ok = await fetch(`${url}/api/health`).then(r => r.ok).catch(() => false)
+    // By default the app must be healthy; `healthy: false` waits only until it answers (a test of start-up).
+    const ok = await fetch(`${url}/api/health`).then(r => r.ok || options.healthy === false).catch(() => false)
     if (ok) break
     if (child.exitCode !== null || Date.now() > deadline) {
       child.kill('SIGKILL')
@@ -70,6 +73,7 @@ export async function startApp(env: Record<string, string> = {}): Promise<Runnin
   return {
     url,
     dataDir,
+    output: () => output,
     async stop() {
       child.kill('SIGTERM')
       const timer = setTimeout(() => child.kill('SIGKILL'), 5000)
@@ -87,8 +91,8 @@ export class Client {
 
   constructor(private readonly base: string) {}
 
-  async request(method: string, path: string, body?: unknown): Promise<{ status: number, body: any, headers: Headers }> {
-    const headers: Record<string, string> = { accept: 'application/json' }
+  async request(method: string, path: string, body?: unknown, extraHeaders: Record<string, string> = {}): Promise<{ status: number, body: any, headers: Headers }> {
+    const headers: Record<string, string> = { accept: 'application/json', ...extraHeaders }
     if (body !== undefined) headers['content-type'] = 'application/json'
     if (this.cookies.size) headers.cookie = [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ')
     const response = await fetch(this.base + path, {
