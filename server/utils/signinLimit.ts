@@ -80,7 +80,7 @@ export async function clearSigninFailures(db: Kysely<Database>, account: string)
   await db.deleteFrom('signin_failures')
     .where(eb => eb.or([
       eb.and([eb('scope', '=', 'account'), eb('key', '=', account)]),
-      eb.and([eb('scope', '=', 'pair'), eb('key', 'like', `${account}\n%`)]),
+      eb.and([eb('scope', '=', 'pair'), startsWithLike('key', `${account}\n`)]),
     ]))
     .execute()
 }
