@@ -6,7 +6,7 @@ const validParams = parseWith(SketchIdParams)
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'observer')
   const { id } = await getValidatedRouterParams(event, validParams)
-  const row = await findSketch(useDb(), user, id, 'read')
+  const row = await findSketch(useDb(), user, id, 'review')
   if (!row?.raster_key) throw createError({ status: 404, message: 'This sketch has no saved image yet.' })
   return sendStoredObject(event, row.raster_key, 'private, no-cache')
 })

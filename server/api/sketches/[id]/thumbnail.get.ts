@@ -8,7 +8,7 @@ export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'observer')
   const { id } = await getValidatedRouterParams(event, validParams)
   const { size } = await getValidatedQuery(event, validQuery)
-  const row = await findSketch(useDb(), user, id, 'read')
+  const row = await findSketch(useDb(), user, id, 'review')
   const key = size === '512' ? row?.thumb_large_key : row?.thumb_small_key
   if (!key) throw createError({ status: 404, message: 'This sketch has no saved image yet.' })
   // Each save writes new keys, so the key is a sound validator and the browser may keep its copy.
