@@ -49,6 +49,7 @@ export async function createFeature(db: Db, input: { name: string, description: 
     latitude: null,
     longitude: null,
     spread_deg: null,
+    formation_id: null,
     created_at: at,
     updated_at: at,
   }).execute()
@@ -190,6 +191,9 @@ export async function mergeFeatures(db: Db, fromId: string, intoId: string): Pro
     await trx.updateTable('feature_tags').set({ feature_id: intoId }).where('feature_id', '=', fromId).execute()
     await trx.updateTable('features').set({ merged_into: intoId }).where('merged_into', '=', fromId).execute()
     await trx.updateTable('features').set({ merged_into: intoId, pin_count: 0, updated_at: new Date().toISOString() }).where('id', '=', fromId).execute()
+    // A link to a reference formation follows the names, unless the feature kept has its own.
+    const from = await trx.selectFrom('features').select('formation_id').where('id', '=', fromId).executeTakeFirstOrThrow()
+    if (from.formation_id) await trx.updateTable('features').set({ formation_id: from.formation_id }).where('id', '=', intoId).where('formation_id', 'is', null).execute()
     await recomputePosition(trx, intoId)
   })
 }

@@ -2,17 +2,22 @@ import { FeatureListQuery } from '#shared/schemas/feature'
 
 const validQuery = parseWith(FeatureListQuery)
 
-// Public: the gazetteer, searched by name and alias, or listed by name.
+// Public: the gazetteer, searched by name and alias (with the reference formations' standard names beside
+// it), or listed by name.
 export default defineEventHandler(async (event) => {
   const q = await getValidatedQuery(event, validQuery)
   const db = useDb()
-  if (q.q) return { items: await searchFeatures(db, q.q, q.perPage, q.status), total: null, page: 1, perPage: q.perPage }
+  if (q.q) {
+    const [items, formations] = await Promise.all([searchFeatures(db, q.q, q.perPage, q.status), searchFormations(db, q.q, 8)])
+    return { items, formations, total: null, page: 1, perPage: q.perPage }
+  }
   let query = db.selectFrom('features').where('merged_into', 'is', null)
   if (q.status) query = query.where('status', '=', q.status)
   const { total } = await query.select(eb => eb.fn.countAll<number>().as('total')).executeTakeFirstOrThrow()
   const rows = await query.selectAll().orderBy('name').orderBy('id').limit(q.perPage).offset((q.page - 1) * q.perPage).execute()
   return {
     items: rows.map(f => ({ id: f.id, name: f.name, matched: null, status: f.status, latitude: f.latitude, longitude: f.longitude, pinCount: f.pin_count, score: 0 })),
+    formations: [],
     total: Number(total),
     page: q.page,
     perPage: q.perPage,
