@@ -11,8 +11,8 @@ const DEG = Math.PI / 180
 /** The Moon's mean radius, km (IAU Working Group on Cartographic Coordinates: 1737.4 km). */
 export const MOON_RADIUS_KM = 1737.4
 
-export type FormationKind =
-  | 'oceanus' | 'mare' | 'sinus' | 'lacus' | 'palus'
+export type FormationKind
+  = | 'oceanus' | 'mare' | 'sinus' | 'lacus' | 'palus'
   | 'crater' | 'mons' | 'montes' | 'promontorium' | 'rupes' | 'vallis' | 'rima'
 
 export const FORMATION_KINDS: readonly FormationKind[] = [
