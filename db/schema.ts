@@ -250,11 +250,14 @@ export interface FeatureNamesTable {
 export interface FeatureNameWordsTable {
   word: string
   name_id: string
+  /** The name's folded key, copied so that search reads candidates from this index alone. */
+  name_key: ColumnType<string, string | undefined, string>
 }
 
 export interface FeatureNameTrigramsTable {
   trigram: string
   name_id: string
+  name_key: ColumnType<string, string | undefined, string>
 }
 
 export interface FeatureTrigramCountsTable {

@@ -44,6 +44,21 @@ export interface FormationMatch {
   score: number
 }
 
+interface Indexed { formation: Formation, key: string, words: string[], grams: string[] }
+let index: { list: Formation[], entries: Indexed[] } | undefined
+
+/** The folded keys and trigrams of the reference names, worked out once. */
+async function indexedFormations(db: Db): Promise<Indexed[]> {
+  const list = await referenceFormations(db)
+  if (index?.list !== list) {
+    index = { list, entries: list.map((formation) => {
+      const key = nameKey(formation.name)
+      return { formation, key, words: key.split(' '), grams: trigrams(key) }
+    }) }
+  }
+  return index.entries
+}
+
 /** Name search over the reference names, scored like the gazetteer's: word prefixes, else trigram likeness. */
 export async function searchFormations(db: Db, query: string, limit = 8): Promise<FormationMatch[]> {
   const key = nameKey(query)
@@ -51,16 +66,11 @@ export async function searchFormations(db: Db, query: string, limit = 8): Promis
   if (!words.length) return []
   const grams = trigrams(key)
   const out: FormationMatch[] = []
-  for (const f of await referenceFormations(db)) {
-    const fKey = nameKey(f.name)
-    const fWords = fKey.split(' ')
-    let score: number
-    if (words.every(q => fWords.some(w => w.startsWith(q)))) score = 2 + (fKey.startsWith(key) ? 1 : 0)
-    else {
-      const fGrams = trigrams(fKey)
-      score = similarity(grams, fGrams, grams.filter(g => fGrams.includes(g)).length)
-    }
-    if (score >= 0.3) out.push({ ...f, score })
+  for (const f of await indexedFormations(db)) {
+    const score = words.every(q => f.words.some(w => w.startsWith(q)))
+      ? 2 + (f.key.startsWith(key) ? 1 : 0)
+      : similarity(grams, f.grams, grams.filter(g => f.grams.includes(g)).length)
+    if (score >= 0.3) out.push({ ...f.formation, score })
   }
   return out.sort((a, b) => b.score - a.score || a.name.localeCompare(b.name)).slice(0, limit)
 }

@@ -13,7 +13,7 @@ export const MOON_RADIUS_KM = 1737.4
 
 export type FormationKind
   = | 'oceanus' | 'mare' | 'sinus' | 'lacus' | 'palus'
-  | 'crater' | 'mons' | 'montes' | 'promontorium' | 'rupes' | 'vallis' | 'rima'
+    | 'crater' | 'mons' | 'montes' | 'promontorium' | 'rupes' | 'vallis' | 'rima'
 
 export const FORMATION_KINDS: readonly FormationKind[] = [
   'oceanus', 'mare', 'sinus', 'lacus', 'palus', 'crater', 'mons', 'montes', 'promontorium', 'rupes', 'vallis', 'rima',
