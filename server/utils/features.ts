@@ -87,13 +87,13 @@ export function prefixEnd(prefix: string): string {
 }
 
 /** Scores a name against the query: every query word a word prefix, else trigram likeness. */
-function scoreName(queryWords: string[], queryGrams: string[], nameKeyText: string): number {
+function scoreName(queryWords: string[], queryGrams: ReadonlySet<string>, nameKeyText: string): number {
   const words = nameKeyText.split(' ')
   const prefixes = queryWords.filter(q => words.some(w => w.startsWith(q))).length
   if (prefixes === queryWords.length) return 2 + (nameKeyText.startsWith(queryWords.join(' ')) ? 1 : 0) - nameKeyText.length / 1000
   const grams = trigrams(nameKeyText)
-  const shared = queryGrams.filter(g => grams.includes(g)).length
-  return similarity(queryGrams, grams, shared)
+  const shared = grams.filter(g => queryGrams.has(g)).length
+  return similarity([...queryGrams], grams, shared)
 }
 
 /**
@@ -109,6 +109,7 @@ export async function searchFeatures(db: Db, query: string, limit = 20, status?:
   const queryWords = key.split(' ').filter(Boolean)
   if (!queryWords.length) return []
   const queryGrams = trigrams(key)
+  const queryGramSet = new Set(queryGrams)
   // The longest word narrows the scan most; of equal ones, the last, which is the one being typed.
   const longest = [...queryWords].reverse().sort((a, b) => b.length - a.length)[0]!
 
@@ -123,7 +124,7 @@ export async function searchFeatures(db: Db, query: string, limit = 20, status?:
   const consider = (rows: { name_id: string, name_key: string }[]) => {
     for (const row of rows) {
       if (scores.has(row.name_id)) continue
-      const score = scoreName(queryWords, queryGrams, row.name_key)
+      const score = scoreName(queryWords, queryGramSet, row.name_key)
       if (score >= 0.3) scores.set(row.name_id, { key: row.name_key, score })
     }
   }
@@ -150,7 +151,7 @@ export async function searchFeatures(db: Db, query: string, limit = 20, status?:
   if (!scores.size) return []
 
   // Read the best candidates (a few spare for aliases of one feature, more when a status filter may drop some).
-  const best = [...scores.entries()].sort((a, b) => b[1].score - a[1].score).slice(0, status ? limit * 3 : limit + 10)
+  const best = [...scores.entries()].sort((a, b) => b[1].score - a[1].score).slice(0, status ? limit * 3 : limit + 5)
   let rowsQuery = namesQuery(db).where('feature_names.id', 'in', best.map(([id]) => id))
   if (status) rowsQuery = rowsQuery.where('features.status', '=', status)
   const byFeature = new Map<string, FeatureMatch>()

@@ -59,18 +59,26 @@ async function indexedFormations(db: Db): Promise<Indexed[]> {
   return index.entries
 }
 
-/** Name search over the reference names, scored like the gazetteer's: word prefixes, else trigram likeness. */
+/**
+ * Name search over the reference names, scored like the gazetteer's: word prefixes first; trigram likeness
+ * only when the prefixes find next to nothing (a slip of a letter).
+ */
 export async function searchFormations(db: Db, query: string, limit = 8): Promise<FormationMatch[]> {
   const key = nameKey(query)
   const words = key.split(' ').filter(Boolean)
   if (!words.length) return []
-  const grams = trigrams(key)
+  const entries = await indexedFormations(db)
   const out: FormationMatch[] = []
-  for (const f of await indexedFormations(db)) {
-    const score = words.every(q => f.words.some(w => w.startsWith(q)))
-      ? 2 + (f.key.startsWith(key) ? 1 : 0)
-      : similarity(grams, f.grams, grams.filter(g => f.grams.includes(g)).length)
-    if (score >= 0.3) out.push({ ...f.formation, score })
+  for (const f of entries) {
+    if (words.every(q => f.words.some(w => w.startsWith(q)))) out.push({ ...f.formation, score: 2 + (f.key.startsWith(key) ? 1 : 0) })
+  }
+  if (out.length < 3) {
+    const grams = new Set(trigrams(key))
+    for (const f of entries) {
+      if (out.some(o => o.id === f.formation.id)) continue
+      const score = similarity([...grams], f.grams, f.grams.filter(g => grams.has(g)).length)
+      if (score >= 0.3) out.push({ ...f.formation, score })
+    }
   }
   return out.sort((a, b) => b.score - a.score || a.name.localeCompare(b.name)).slice(0, limit)
 }

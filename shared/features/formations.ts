@@ -175,10 +175,13 @@ export interface OnTerminator {
 /** A low Sun, up to about 10°, is where relief stands out (common practice among lunar observers). */
 export const LOW_SUN_DEG = 10
 
+/** How far a formation's size widens the band, at most: a sea 1500 km across is not "on" the terminator all week. */
+export const BAND_REACH_DEG = 5
+
 /**
  * The formations that the terminator crosses or that stand under a low Sun beside it: the Sun's altitude at
  * the centre between −r (the night edge reaching the rim) and LOW_SUN_DEG + r, with r the formation's
- * angular radius; north to south.
+ * angular radius up to BAND_REACH_DEG; north to south.
  */
 export function formationsOnTerminator(
   formations: readonly Formation[],
@@ -190,7 +193,7 @@ export function formationsOnTerminator(
   for (const formation of formations) {
     const p = centre(formation)
     const h = sunAltitudeDeg(p, colongitudeDeg, subSolarLatDeg)
-    const r = angularRadiusDeg(formation)
+    const r = Math.min(BAND_REACH_DEG, angularRadiusDeg(formation))
     if (h >= -r && h <= lowSunDeg + r) out.push({ formation, sunAltitudeDeg: h, side: terminatorSide(p, colongitudeDeg) })
   }
   return out.sort((a, b) => b.formation.latitude - a.formation.latitude || a.formation.longitude - b.formation.longitude)

@@ -8,6 +8,7 @@ import { lunarCircumstances, selenographicToDisk } from '../../shared/lunar'
 import { DISK_RADIUS, SKETCH_SIZE } from '../../shared/sketch/frame'
 import { Client, DEMO, startApp, type RunningApp } from '../support/app'
 import { artifact, launchBrowser, openReady } from '../support/browser'
+import { savedSketch } from '../support/sketches'
 
 let app: RunningApp
 let browser: Browser
@@ -21,7 +22,14 @@ beforeAll(async () => {
   observer = new Client(app.url)
   await observer.signIn(DEMO.observer.email, DEMO.observer.password)
   const nights = (await observer.get('/api/observations?perPage=50&sort=observedAt&dir=asc')).body.items
-  sketchId = (await observer.post('/api/sketches', { observationId: nights[7].id })).body.id
+  // A night of the demo lunation that has no sketch yet, saved once so that it can be submitted.
+  for (const night of [...nights].reverse()) {
+    const id = await savedSketch(app.url, observer, night.id).catch(() => null)
+    if (id) {
+      sketchId = id
+      break
+    }
+  }
   context = await browser.newContext({ viewport: { width: 1280, height: 800 } })
   const page = await context.newPage()
   await openReady(page, `${app.url}/sign-in`)

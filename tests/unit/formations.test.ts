@@ -254,9 +254,18 @@ describe('formations on the terminator', () => {
     // Exactly those whose independent altitude is in the band, none missed.
     const expected = REFERENCE_FORMATIONS.filter((f) => {
       const h = independent(f, 5, 0)
-      return h >= -angularRadiusDeg(f) && h <= 10 + angularRadiusDeg(f)
+      const r = Math.min(5, angularRadiusDeg(f))
+      return h >= -r && h <= 10 + r
     })
     expect(list.length).toBe(expected.length)
+  })
+
+  it('leaves out a long sea whose centre stands under a high Sun, however far it stretches', () => {
+    // At c0 = 40° the Sun stands about 22° over Mare Frigoris' centre (1600 km long, its radius 26°).
+    const frigoris = byName('Mare Frigoris')
+    expect(independent(frigoris, 40, 0)).toBeGreaterThan(20)
+    expect(formationsOnTerminator(REFERENCE_FORMATIONS, 40, 0).map(o => o.formation.name)).not.toContain('Mare Frigoris')
+    expect(formationsOnTerminator(REFERENCE_FORMATIONS, 5, 0).map(o => o.formation.name)).toContain('Mare Frigoris')
   })
 
   it('at last quarter lists the same meridian under an evening Sun', () => {
