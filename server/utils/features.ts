@@ -87,13 +87,13 @@ export function prefixEnd(prefix: string): string {
 }
 
 /** Scores a name against the query: every query word a word prefix, else trigram likeness. */
-function scoreName(queryWords: string[], queryGrams: ReadonlySet<string>, nameKeyText: string): number {
+function scoreName(queryWords: string[], queryGrams: string[], gramSet: ReadonlySet<string>, nameKeyText: string): number {
   const words = nameKeyText.split(' ')
   const prefixes = queryWords.filter(q => words.some(w => w.startsWith(q))).length
   if (prefixes === queryWords.length) return 2 + (nameKeyText.startsWith(queryWords.join(' ')) ? 1 : 0) - nameKeyText.length / 1000
   const grams = trigrams(nameKeyText)
-  const shared = grams.filter(g => queryGrams.has(g)).length
-  return similarity([...queryGrams], grams, shared)
+  const shared = grams.filter(g => gramSet.has(g)).length
+  return similarity(queryGrams, grams, shared)
 }
 
 /**
@@ -124,7 +124,7 @@ export async function searchFeatures(db: Db, query: string, limit = 20, status?:
   const consider = (rows: { name_id: string, name_key: string }[]) => {
     for (const row of rows) {
       if (scores.has(row.name_id)) continue
-      const score = scoreName(queryWords, queryGramSet, row.name_key)
+      const score = scoreName(queryWords, queryGrams, queryGramSet, row.name_key)
       if (score >= 0.3) scores.set(row.name_id, { key: row.name_key, score })
     }
   }

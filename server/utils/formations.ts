@@ -73,10 +73,11 @@ export async function searchFormations(db: Db, query: string, limit = 8): Promis
     if (words.every(q => f.words.some(w => w.startsWith(q)))) out.push({ ...f.formation, score: 2 + (f.key.startsWith(key) ? 1 : 0) })
   }
   if (out.length < 3) {
-    const grams = new Set(trigrams(key))
+    const grams = trigrams(key)
+    const gramSet = new Set(grams)
     for (const f of entries) {
       if (out.some(o => o.id === f.formation.id)) continue
-      const score = similarity([...grams], f.grams, f.grams.filter(g => grams.has(g)).length)
+      const score = similarity(grams, f.grams, f.grams.filter(g => gramSet.has(g)).length)
       if (score >= 0.3) out.push({ ...f.formation, score })
     }
   }
