@@ -118,7 +118,7 @@ export async function searchFeatures(db: Db, query: string, limit = 20, status?:
     .where('word', '<', prefixEnd(longest))
   // Keys hold only letters, digits and single spaces, so a word needs no escaping inside a LIKE pattern.
   for (const other of new Set(queryWords.filter(w => w !== longest))) {
-    prefixScan = prefixScan.where(sql<string>`' ' || name_key`, 'like', `% ${other}%`)
+    prefixScan = prefixScan.where(sql<string>`(' ' || name_key)`, 'like', `% ${other}%`)
   }
   const scores = new Map<string, { key: string, score: number }>()
   const consider = (rows: { name_id: string, name_key: string }[]) => {
