@@ -94,6 +94,8 @@ describe('standard names on the sketch desk', () => {
     await page.getByRole('link', { name: 'In the atlas' }).click()
     await page.waitForURL(/formation=copernicus/)
     await page.locator(`a[href="/atlas/${sketchId}"]`).waitFor()
+    // The filter shows the formation once the list of names has arrived.
+    await page.waitForFunction(() => document.querySelector<HTMLSelectElement>('[data-testid="formation-select"]')?.value === 'copernicus')
     expect(await page.getByTestId('formation-select').inputValue()).toBe('copernicus')
     await page.screenshot({ path: artifact('atlas-by-formation.png'), fullPage: true })
     await page.close()
