@@ -57,7 +57,14 @@ export function useSketchPins(sketchId: string, geometry: Ref<DiskGeometry | nul
     pending.value = at
   }
 
-  async function name(choice: { featureId: string } | { name: string }) {
+  /** Where the waiting pin is on the Moon, for the standard names suggested under it. */
+  const pendingPlace = computed(() => {
+    if (!pending.value || !geometry.value) return null
+    const disk = sketchToDisk(pending.value)
+    return diskToSelenographic(disk.x, disk.y, geometry.value, store.view)
+  })
+
+  async function name(choice: { featureId: string } | { name: string } | { formationId: string }) {
     if (!pending.value) return
     const disk = sketchToDisk(pending.value)
     const pin = await $fetch<SketchPin>(`${base}/tags`, {
@@ -74,7 +81,7 @@ export function useSketchPins(sketchId: string, geometry: Ref<DiskGeometry | nul
     pins.value = pins.value.filter(p => p.id !== pin.id)
   }
 
-  return { pins, overlay, nearTerminator, overlayVisible, pending, message, load, requestAt, name, remove }
+  return { pins, overlay, nearTerminator, overlayVisible, pending, pendingPlace, message, load, requestAt, name, remove }
 }
 
 export type SketchPins = ReturnType<typeof useSketchPins>

@@ -2,6 +2,7 @@ import type { ColumnType, Insertable, Selectable, Updateable } from 'kysely'
 import type { Role } from '../shared/roles'
 import type { InstrumentKind, InstrumentView } from '../shared/observing/instrument'
 import type { SketchStatus } from '../shared/review/lifecycle'
+import type { FormationKind } from '../shared/features/formations'
 
 export type { SketchStatus }
 
@@ -227,8 +228,28 @@ export interface FeaturesTable {
   /** RMS angular distance of the pins from that mean. */
   spread_deg: number | null
   pin_count: ColumnType<number, number | undefined, number>
+  /** The reference formation this user name stands for, if linked. */
+  formation_id: ColumnType<string | null, string | null | undefined, string | null>
   created_at: CreatedAt
   updated_at: Instant
+}
+
+/** An IAU-named formation of the reference layer (db/data/formations.ts). */
+export interface FormationsTable {
+  id: string
+  name: string
+  name_key: string
+  kind: FormationKind
+  latitude: number
+  longitude: number
+  diameter_km: number
+}
+
+/** A pin inside a formation's outline. */
+export interface FormationPinsTable {
+  formation_id: string
+  sketch_id: string
+  tag_id: string
 }
 
 export interface FeatureNamesTable {
@@ -244,11 +265,14 @@ export interface FeatureNamesTable {
 export interface FeatureNameWordsTable {
   word: string
   name_id: string
+  /** The name's folded key, copied so that search reads candidates from this index alone. */
+  name_key: ColumnType<string, string | undefined, string>
 }
 
 export interface FeatureNameTrigramsTable {
   trigram: string
   name_id: string
+  name_key: ColumnType<string, string | undefined, string>
 }
 
 export interface FeatureTrigramCountsTable {
@@ -293,6 +317,8 @@ export interface Database {
   feature_name_trigrams: FeatureNameTrigramsTable
   feature_trigram_counts: FeatureTrigramCountsTable
   feature_tags: FeatureTagsTable
+  formations: FormationsTable
+  formation_pins: FormationPinsTable
 }
 
 export type User = Selectable<UsersTable>
@@ -314,3 +340,4 @@ export type SketchReview = Selectable<SketchReviewsTable>
 export type AtlasEntry = Selectable<AtlasEntriesTable>
 export type Feature = Selectable<FeaturesTable>
 export type FeatureTag = Selectable<FeatureTagsTable>
+export type FormationRow = Selectable<FormationsTable>

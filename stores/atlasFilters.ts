@@ -8,6 +8,7 @@ export interface AtlasFilterState {
   colongitudeMin: string
   colongitudeMax: string
   feature: string
+  formation: string
   observer: string
   instrument: string
   from: string
@@ -17,7 +18,7 @@ export interface AtlasFilterState {
 
 const EMPTY: AtlasFilterState = {
   phase: '', ageMin: '', ageMax: '', colongitudeMin: '', colongitudeMax: '',
-  feature: '', observer: '', instrument: '', from: '', to: '', page: 1,
+  feature: '', formation: '', observer: '', instrument: '', from: '', to: '', page: 1,
 }
 
 /**

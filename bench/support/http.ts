@@ -48,6 +48,8 @@ export interface Timing {
   p95Ms: number
   meanMs: number
   requestsPerSecond: number
+  /** Every response time, ms, when asked for (to combine rounds); left out of the written figures. */
+  times?: number[]
 }
 
 function percentile(sorted: number[], p: number): number {
@@ -59,7 +61,7 @@ function percentile(sorted: number[], p: number): number {
 }
 
 /** Runs `amount` requests over `connections` connections, paths drawn in turn from `paths`. */
-export async function measure(url: string, paths: string[], connections: number, amount: number): Promise<Timing> {
+export async function measure(url: string, paths: string[], connections: number, amount: number, keepTimes = false): Promise<Timing> {
   const times: number[] = []
   let next = 0
   const started = Date.now()
@@ -89,6 +91,22 @@ export async function measure(url: string, paths: string[], connections: number,
     p95Ms: percentile(times, 0.95),
     meanMs: times.reduce((s, t) => s + t, 0) / times.length,
     requestsPerSecond: times.length / elapsed,
+    ...(keepTimes ? { times } : {}),
+  }
+}
+
+/** One timing from several rounds of one route: percentiles over every response of every round. */
+export function combine(rounds: Timing[]): Timing {
+  const times = rounds.flatMap(r => r.times ?? []).sort((a, b) => a - b)
+  const seconds = rounds.reduce((sum, r) => sum + r.requests / r.requestsPerSecond, 0)
+  return {
+    requests: times.length,
+    errors: rounds.reduce((sum, r) => sum + r.errors, 0),
+    non2xx: rounds.reduce((sum, r) => sum + r.non2xx, 0),
+    medianMs: percentile(times, 0.5),
+    p95Ms: percentile(times, 0.95),
+    meanMs: times.reduce((s, t) => s + t, 0) / times.length,
+    requestsPerSecond: times.length / seconds,
   }
 }
 

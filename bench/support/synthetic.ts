@@ -44,8 +44,8 @@ export async function buildSyntheticDb(dataDir: string, size: SyntheticSize): Pr
     })
     const feature = db.prepare(`insert into features (id, name, description, status, latitude, longitude, spread_deg, pin_count, created_at, updated_at) values (?, ?, '', ?, ?, ?, 0.3, 10, ?, ?)`)
     const name = db.prepare(`insert into feature_names (id, feature_id, name, name_key, kind, created_at) values (?, ?, ?, ?, ?, ?)`)
-    const gram = db.prepare(`insert or ignore into feature_name_trigrams (trigram, name_id) values (?, ?)`)
-    const word = db.prepare(`insert or ignore into feature_name_words (word, name_id) values (?, ?)`)
+    const gram = db.prepare(`insert or ignore into feature_name_trigrams (trigram, name_id, name_key) values (?, ?, ?)`)
+    const word = db.prepare(`insert or ignore into feature_name_words (word, name_id, name_key) values (?, ?, ?)`)
     const count = db.prepare(`insert into feature_trigram_counts (trigram, names) values (?, 1) on conflict (trigram) do update set names = names + 1`)
     for (let i = 0; i < size.features; i += 1) {
       const id = randomUUID()
@@ -58,10 +58,10 @@ export async function buildSyntheticDb(dataDir: string, size: SyntheticSize): Pr
         const key = nameKey(text)
         name.run(nameId, id, text, key, kind, at)
         for (const t of trigrams(key)) {
-          gram.run(t, nameId)
+          gram.run(t, nameId, key)
           count.run(t)
         }
-        for (const w of key.split(' ')) word.run(w, nameId)
+        for (const w of key.split(' ')) word.run(w, nameId, key)
       }
       featureIds.push(id)
       featureNames.push(label)

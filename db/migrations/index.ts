@@ -6,6 +6,8 @@ import * as sketchSaveId from './2026-12-02-05-sketch-save-id'
 import * as review from './2026-12-02-06-review'
 import * as features from './2026-12-02-07-features'
 import * as sessionsOutboxRemovals from './2026-12-02-10-sessions-outbox-removals'
+import * as formations from './2026-12-02-35-formations'
+import * as nameSearchKeys from './2026-12-02-36-name-search-keys'
 
 // Migrations are imported statically so they survive the server bundle.
 // Add each new migration here under its file name; names sort by date.
@@ -17,6 +19,8 @@ export const migrations: Record<string, Migration> = {
   '2026-12-02-06-review': review,
   '2026-12-02-07-features': features,
   '2026-12-02-10-sessions-outbox-removals': sessionsOutboxRemovals,
+  '2026-12-02-35-formations': formations,
+  '2026-12-02-36-name-search-keys': nameSearchKeys,
 }
 
 export const migrationProvider: MigrationProvider = {

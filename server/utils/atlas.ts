@@ -44,6 +44,13 @@ export function atlasQuery(db: Kysely<Database>, q: AtlasQuery) {
       .select('feature_tags.sketch_id')
       .where('feature_tags.feature_id', '=', feature))
   }
+  if (q.formation) {
+    const formation = q.formation
+    // Driven from the pins inside the formation (primary key formation_id, sketch_id).
+    query = query.where('sketch_id', 'in', eb => eb.selectFrom('formation_pins')
+      .select('formation_pins.sketch_id')
+      .where('formation_pins.formation_id', '=', formation))
+  }
   if (q.instrument) query = query.where('instrument_kind', '=', q.instrument)
   if (q.from) query = query.where('observed_at', '>=', `${q.from}T00:00:00.000Z`)
   if (q.to) query = query.where('observed_at', '<=', `${q.to}T23:59:59.999Z`)

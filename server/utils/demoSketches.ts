@@ -126,10 +126,12 @@ export async function seedDemoSketches(db: Kysely<Database>, store: ObjectStore)
       const disk = sketchToDisk(place)
       const seleno = diskToSelenographic(disk.x, disk.y, c, VIEW)
       if (!seleno) continue
+      const tagId = newId()
       await db.insertInto('feature_tags').values({
-        id: newId(), sketch_id: id, feature_id: featureId, user_id: observer.id, disk_x: disk.x, disk_y: disk.y,
+        id: tagId, sketch_id: id, feature_id: featureId, user_id: observer.id, disk_x: disk.x, disk_y: disk.y,
         view_orientation: VIEW.orientation, view_flip: VIEW.flip, latitude: seleno.lat, longitude: seleno.lon, created_at: at,
       }).execute()
+      await pinFormations(db, { id: tagId, sketch_id: id, latitude: seleno.lat, longitude: seleno.lon })
     }
     made += 1
   }

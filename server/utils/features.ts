@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto'
 import { createError } from 'h3'
-import type { Kysely } from 'kysely'
+import { sql, type Kysely } from 'kysely'
 import type { Database, Feature } from '../../db/schema'
 import { nameKey, similarity, trigrams } from '#shared/features/names'
 import { distanceFromTerminator, meanPosition } from '#shared/features/position'
@@ -15,13 +15,13 @@ export async function addName(db: Db, featureId: string, name: string, kind: 'na
   await db.insertInto('feature_names').values({ id, feature_id: featureId, name: name.trim(), name_key: key, kind, created_at: new Date().toISOString() }).execute()
   const grams = trigrams(key)
   if (grams.length) {
-    await db.insertInto('feature_name_trigrams').values(grams.map(trigram => ({ trigram, name_id: id }))).execute()
+    await db.insertInto('feature_name_trigrams').values(grams.map(trigram => ({ trigram, name_id: id, name_key: key }))).execute()
     await db.insertInto('feature_trigram_counts').values(grams.map(trigram => ({ trigram, names: 1 })))
       .onConflict(oc => oc.column('trigram').doUpdateSet(eb => ({ names: eb('feature_trigram_counts.names', '+', 1) })))
       .execute()
   }
   const words = [...new Set(key.split(' ').filter(Boolean))]
-  if (words.length) await db.insertInto('feature_name_words').values(words.map(word => ({ word, name_id: id }))).execute()
+  if (words.length) await db.insertInto('feature_name_words').values(words.map(word => ({ word, name_id: id, name_key: key }))).execute()
 }
 
 /** The live feature that already answers to this name, if any. */
@@ -50,6 +50,7 @@ export async function createFeature(db: Db, input: { name: string, description: 
     latitude: null,
     longitude: null,
     spread_deg: null,
+    formation_id: null,
     created_at: at,
     updated_at: at,
   }).execute()
@@ -69,7 +70,7 @@ export interface FeatureMatch {
   score: number
 }
 
-const PREFIX_CANDIDATES = 50
+const PREFIX_CANDIDATES = 200
 const FUZZY_CANDIDATES = 200
 const FUZZY_BELOW = 5
 
@@ -87,42 +88,50 @@ export function prefixEnd(prefix: string): string {
 }
 
 /** Scores a name against the query: every query word a word prefix, else trigram likeness. */
-function scoreName(queryWords: string[], queryGrams: string[], nameKeyText: string): number {
+function scoreName(queryWords: string[], queryGrams: string[], gramSet: ReadonlySet<string>, nameKeyText: string): number {
   const words = nameKeyText.split(' ')
   const prefixes = queryWords.filter(q => words.some(w => w.startsWith(q))).length
   if (prefixes === queryWords.length) return 2 + (nameKeyText.startsWith(queryWords.join(' ')) ? 1 : 0) - nameKeyText.length / 1000
   const grams = trigrams(nameKeyText)
-  const shared = queryGrams.filter(g => grams.includes(g)).length
+  const shared = grams.filter(g => gramSet.has(g)).length
   return similarity(queryGrams, grams, shared)
 }
 
 /**
  * Forgiving name search. First the fast path, an index range scan for names with a word that starts
- * with the most telling query word (search as you type); when that finds too little, candidates sharing
- * the query's rarest trigrams, ranked by Jaccard likeness, so a slip of a letter still finds the name.
- * Case and accents never matter: everything is matched on folded keys.
+ * with the most telling query word, the other words checked on the folded key kept in the same index
+ * (search as you type); when that finds too little, candidates sharing the query's rarest trigrams, ranked
+ * by Jaccard likeness, so a slip of a letter still finds the name. Candidates are scored from the indexes
+ * alone; only the best are read with their features. Case and accents never matter: everything is matched
+ * on folded keys.
  */
 export async function searchFeatures(db: Db, query: string, limit = 20, status?: 'proposed' | 'confirmed', viewerId: string | null = null): Promise<FeatureMatch[]> {
   const key = nameKey(query)
   const queryWords = key.split(' ').filter(Boolean)
   if (!queryWords.length) return []
   const queryGrams = trigrams(key)
+  const queryGramSet = new Set(queryGrams)
   // The longest word narrows the scan most; of equal ones, the last, which is the one being typed.
   const longest = [...queryWords].reverse().sort((a, b) => b.length - a.length)[0]!
 
-  const names = (narrow: (q: ReturnType<typeof namesQuery>) => ReturnType<typeof namesQuery>) => {
-    let q = narrow(namesQuery(db)).where(featureIsVisible(viewerId))
-    if (status) q = q.where('features.status', '=', status)
-    return q.execute()
+  let prefixScan = db.selectFrom('feature_name_words').select(['name_id', 'name_key'])
+    .where('word', '>=', longest)
+    .where('word', '<', prefixEnd(longest))
+  // Keys hold only letters, digits and single spaces, so a word needs no escaping inside a LIKE pattern.
+  for (const other of new Set(queryWords.filter(w => w !== longest))) {
+    prefixScan = prefixScan.where(sql<string>`(' ' || name_key)`, 'like', `% ${other}%`)
   }
-  const prefixRows = await names(q => q
-    .innerJoin('feature_name_words', 'feature_name_words.name_id', 'feature_names.id')
-    .where('feature_name_words.word', '>=', longest)
-    .where('feature_name_words.word', '<', prefixEnd(longest))
-    .limit(PREFIX_CANDIDATES))
+  const scores = new Map<string, { key: string, score: number }>()
+  const consider = (rows: { name_id: string, name_key: string }[]) => {
+    for (const row of rows) {
+      if (scores.has(row.name_id)) continue
+      const score = scoreName(queryWords, queryGrams, queryGramSet, row.name_key)
+      if (score >= 0.3) scores.set(row.name_id, { key: row.name_key, score })
+    }
+  }
+  consider(await prefixScan.limit(PREFIX_CANDIDATES).execute())
   // Word-prefix matches score 1.9 and up; trigram likeness is at most 1.
-  let results = prefixRows.map(row => ({ row, score: scoreName(queryWords, queryGrams, row.name_key) })).filter(r => r.score >= 0.3)
-  const strong = results.filter(r => r.score > 1.5).length
+  const strong = [...scores.values()].filter(r => r.score > 1.5).length
 
   // Likeness only when the prefixes find next to nothing: a slip of a letter, not a short prefix.
   if (strong < Math.min(limit, FUZZY_BELOW) && queryGrams.length) {
@@ -134,23 +143,25 @@ export async function searchFeatures(db: Db, query: string, limit = 20, status?:
       .limit(2)
       .execute()).map(c => c.trigram)
     if (rarest.length) {
-      const seen = new Set(prefixRows.map(r => r.nameId))
-      const fuzzyRows = await names(q => q
-        .innerJoin('feature_name_trigrams', 'feature_name_trigrams.name_id', 'feature_names.id')
-        .where('feature_name_trigrams.trigram', 'in', rarest)
-        .limit(FUZZY_CANDIDATES))
-      results = results.concat(fuzzyRows
-        .filter(row => !seen.has(row.nameId))
-        .map(row => ({ row, score: scoreName(queryWords, queryGrams, row.name_key) }))
-        .filter(r => r.score >= 0.3))
+      consider(await db.selectFrom('feature_name_trigrams').select(['name_id', 'name_key'])
+        .where('trigram', 'in', rarest)
+        .limit(FUZZY_CANDIDATES)
+        .execute())
     }
   }
+  if (!scores.size) return []
 
-  const best = new Map<string, FeatureMatch>()
-  for (const { row, score } of results) {
-    const found = best.get(row.id)
+  // Read the best candidates (spare ones for aliases of one feature, and for names a status filter or the
+  // viewer's sight of private proposals drops).
+  const best = [...scores.entries()].sort((a, b) => b[1].score - a[1].score).slice(0, limit * 3)
+  let rowsQuery = namesQuery(db).where('feature_names.id', 'in', best.map(([id]) => id)).where(featureIsVisible(viewerId))
+  if (status) rowsQuery = rowsQuery.where('features.status', '=', status)
+  const byFeature = new Map<string, FeatureMatch>()
+  for (const row of await rowsQuery.execute()) {
+    const score = scores.get(row.nameId)!.score
+    const found = byFeature.get(row.id)
     if (!found || found.score < score) {
-      best.set(row.id, {
+      byFeature.set(row.id, {
         id: row.id,
         name: row.name,
         matched: row.kind === 'alias' ? row.matchedName : null,
@@ -162,7 +173,7 @@ export async function searchFeatures(db: Db, query: string, limit = 20, status?:
       })
     }
   }
-  return [...best.values()].sort((a, b) => b.score - a.score || a.name.localeCompare(b.name)).slice(0, limit)
+  return [...byFeature.values()].sort((a, b) => b.score - a.score || a.name.localeCompare(b.name)).slice(0, limit)
 }
 
 /** The feature's place is the mean of its pins, kept on the row so the map and lists need no aggregate. */
@@ -191,6 +202,9 @@ export async function mergeFeatures(db: Db, fromId: string, intoId: string): Pro
     await trx.updateTable('feature_tags').set({ feature_id: intoId }).where('feature_id', '=', fromId).execute()
     await trx.updateTable('features').set({ merged_into: intoId }).where('merged_into', '=', fromId).execute()
     await trx.updateTable('features').set({ merged_into: intoId, pin_count: 0, updated_at: new Date().toISOString() }).where('id', '=', fromId).execute()
+    // A link to a reference formation follows the names, unless the feature kept has its own.
+    const from = await trx.selectFrom('features').select('formation_id').where('id', '=', fromId).executeTakeFirstOrThrow()
+    if (from.formation_id) await trx.updateTable('features').set({ formation_id: from.formation_id }).where('id', '=', intoId).where('formation_id', 'is', null).execute()
     await recomputePosition(trx, intoId)
   })
 }

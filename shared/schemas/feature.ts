@@ -13,11 +13,22 @@ export const FeatureCreateBody = z.object({
   description: Description.default(''),
 })
 
+/** A reference formation's slug, e.g. "mare-imbrium". */
+export const FormationId = z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'Unknown formation.').max(80, 'Unknown formation.')
+
 export const FeaturePatchBody = z.object({
   name: FeatureName.optional(),
   description: Description.optional(),
   status: z.enum(['proposed', 'confirmed']).optional(),
-}).refine(b => b.name !== undefined || b.description !== undefined || b.status !== undefined, 'Nothing to change.')
+  /** Links the feature to the reference formation it stands for; null unlinks. */
+  formationId: FormationId.nullable().optional(),
+}).refine(b => b.name !== undefined || b.description !== undefined || b.status !== undefined || b.formationId !== undefined, 'Nothing to change.')
+
+export const FormationParams = z.object({ id: FormationId })
+
+export const FormationListQuery = z.object({
+  q: z.string().max(80).optional(),
+})
 
 export const MergeBody = z.object({ into: z.uuid('Choose the feature to merge into.') })
 
@@ -44,6 +55,8 @@ export const TagBody = z.object({
   flip: z.enum(['none', 'inverted', 'mirrored']).optional(),
   featureId: z.uuid().optional(),
   name: FeatureName.optional(),
-}).refine(b => (b.featureId === undefined) !== (b.name === undefined), 'Pick an existing feature or give a new name, not both.')
+  /** Takes a reference formation's standard name. */
+  formationId: FormationId.optional(),
+}).refine(b => [b.featureId, b.name, b.formationId].filter(v => v !== undefined).length === 1, 'Pick an existing feature, a standard name or give a new name: one of them.')
 
 export const TagParams = z.object({ id: z.uuid('Unknown id.'), tagId: z.uuid('Unknown id.') })

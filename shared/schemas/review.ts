@@ -32,6 +32,8 @@ export const AtlasQuery = z.object({
   colongitudeMin: z.coerce.number().min(0).max(360).optional(),
   colongitudeMax: z.coerce.number().min(0).max(360).optional(),
   feature: z.uuid().optional(),
+  /** A reference formation's slug: every entry with a pin inside its outline. */
+  formation: z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'Unknown formation.').max(80, 'Unknown formation.').optional(),
   observer: z.uuid().optional(),
   instrument: InstrumentKind.optional(),
   from: LocalDate.optional(),

@@ -48,6 +48,8 @@ const ROUTES: Record<string, Role | null> = {
   'POST /api/features': 'observer',
   'PATCH /api/features/[id]': 'moderator',
   'POST /api/features/[id]/merge': 'moderator',
+  'GET /api/formations': null,
+  'GET /api/formations/[id]': null,
   'GET /api/sketches/[id]/tags': 'observer',
   'POST /api/sketches/[id]/tags': 'observer',
   'DELETE /api/sketches/[id]/tags/[tagId]': 'observer',

@@ -32,6 +32,7 @@ export default defineEventHandler(async (event) => {
       spreadDeg: feature.spread_deg,
       pinCount: feature.pin_count,
     },
+    formation: feature.formation_id ? (await formationById(db, feature.formation_id)) ?? null : null,
     aliases: await featureAliases(db, id),
     entries: cards,
     colongitudeRange: colongitudes.length ? { min: Math.min(...colongitudes), max: Math.max(...colongitudes) } : null,

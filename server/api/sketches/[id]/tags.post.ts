@@ -23,6 +23,11 @@ export default defineEventHandler(async (event) => {
     if (!feature) throw createError({ status: 400, message: 'featureId: No such feature.' })
     featureId = feature.merged_into ?? feature.id
   }
+  else if (body.formationId) {
+    const formation = await formationById(db, body.formationId)
+    if (!formation) throw createError({ status: 400, message: 'formationId: No such formation.' })
+    featureId = await featureForFormation(db, formation)
+  }
   else {
     featureId = (await featureNamed(db, body.name!))?.id ?? await createFeature(db, { name: body.name!, description: '', proposedBy: user.id })
   }
@@ -40,6 +45,7 @@ export default defineEventHandler(async (event) => {
     longitude: place.lon,
     created_at: nowIso(),
   }).execute()
+  await pinFormations(db, { id: tagId, sketch_id: id, latitude: place.lat, longitude: place.lon })
   await recomputePosition(db, featureId)
   setResponseStatus(event, 201)
   return (await pinsOf(id)).find(p => p.id === tagId)
