@@ -100,15 +100,17 @@ describe('the reference formations', () => {
     expect((await observer.patch(`/api/features/${made}`, { formationId: 'tycho' })).status).toBe(403)
     expect((await moderator.patch(`/api/features/${made}`, { formationId: 'atlantis' })).status).toBe(400)
     expect((await moderator.patch(`/api/features/${made}`, { formationId: 'Tycho!' })).status).toBe(400)
-    expect((await visitor.get(`/api/features/${made}`)).body.formation).toBeNull()
+    expect((await observer.get(`/api/features/${made}`)).body.formation).toBeNull()
     expect((await moderator.patch(`/api/features/${made}`, { formationId: 'tycho' })).status).toBe(200)
-    expect((await visitor.get(`/api/features/${made}`)).body.formation.id).toBe('tycho')
-    expect((await visitor.get('/api/formations/tycho')).body.features.map((f: any) => f.id)).toContain(made)
+    expect((await observer.get(`/api/features/${made}`)).body.formation.id).toBe('tycho')
+    expect((await observer.get('/api/formations/tycho')).body.features.map((f: any) => f.id)).toContain(made)
+    // A proposal pinned on no submitted sketch stays its proposer's until one is.
+    expect((await visitor.get('/api/formations/tycho')).body.features.map((f: any) => f.id)).not.toContain(made)
 
     const twin = (await observer.post('/api/features', { name: 'Bright crater of the south' })).body.id
     expect((await moderator.post(`/api/features/${made}/merge`, { into: twin })).status).toBe(200)
-    expect((await visitor.get(`/api/features/${twin}`)).body.formation.id).toBe('tycho')
+    expect((await observer.get(`/api/features/${twin}`)).body.formation.id).toBe('tycho')
     expect((await moderator.patch(`/api/features/${twin}`, { formationId: null })).status).toBe(200)
-    expect((await visitor.get(`/api/features/${twin}`)).body.formation).toBeNull()
+    expect((await observer.get(`/api/features/${twin}`)).body.formation).toBeNull()
   })
 })

@@ -110,14 +110,16 @@ describe('the gazetteer', () => {
   it('finds a name by an alias, without accents, and despite a slip of a letter', async () => {
     const id = await createFeature(db, { name: 'Théophilus', description: '', proposedBy: user })
     await addName(db, id, 'The three-ringed crater', 'alias')
-    expect((await searchFeatures(db, 'theophilus'))[0]?.id).toBe(id)
-    expect((await searchFeatures(db, 'THEOPH'))[0]?.id).toBe(id)
-    expect((await searchFeatures(db, 'theofilus'))[0]?.id).toBe(id)
-    const byAlias = await searchFeatures(db, 'three ringed')
+    // A proposal pinned on no submitted sketch is found by its proposer only.
+    expect(await searchFeatures(db, 'theophilus')).toEqual([])
+    expect((await searchFeatures(db, 'theophilus', 20, undefined, user))[0]?.id).toBe(id)
+    expect((await searchFeatures(db, 'THEOPH', 20, undefined, user))[0]?.id).toBe(id)
+    expect((await searchFeatures(db, 'theofilus', 20, undefined, user))[0]?.id).toBe(id)
+    const byAlias = await searchFeatures(db, 'three ringed', 20, undefined, user)
     expect(byAlias[0]).toMatchObject({ id, matched: 'The three-ringed crater' })
     // One word right and one mistyped: the right word must not hide the name from the likeness search.
-    expect((await searchFeatures(db, 'three rnged'))[0]?.id).toBe(id)
-    expect(await searchFeatures(db, 'zzzz')).toEqual([])
+    expect((await searchFeatures(db, 'three rnged', 20, undefined, user))[0]?.id).toBe(id)
+    expect(await searchFeatures(db, 'zzzz', 20, undefined, user)).toEqual([])
     await expect(createFeature(db, { name: 'THEOPHILUS', description: '', proposedBy: user })).rejects.toMatchObject({ statusCode: 409 })
   })
 
@@ -138,7 +140,7 @@ describe('the gazetteer', () => {
     const kept = await db.selectFrom('features').selectAll().where('id', '=', keep).executeTakeFirstOrThrow()
     expect(kept.pin_count).toBe(3)
     expect(kept.latitude).toBeCloseTo((-21.8 - 22.2 - 21.9) / 3, 1)
-    expect((await searchFeatures(db, 'straight cliff'))[0]?.id).toBe(keep)
+    expect((await searchFeatures(db, 'straight cliff', 20, undefined, user))[0]?.id).toBe(keep)
     await expect(mergeFeatures(db, dup, keep)).rejects.toMatchObject({ statusCode: 404 })
   })
 })
