@@ -13,7 +13,7 @@ export function freshDataDir(name: string): string {
   return mkdtempSync(join(tmpdir(), `shadowline-bench-${name}-`))
 }
 
-export async function startServer(dataDir: string, port: number): Promise<{ url: string, stop: () => void }> {
+export async function startServer(dataDir: string, port: number, env: Record<string, string> = {}): Promise<{ url: string, stop: () => void }> {
   const entry = join(root, '.output/server/index.mjs')
   if (!existsSync(entry)) throw new Error('Build the app first: npm run build')
   const child = spawn(process.execPath, [entry], {
@@ -28,6 +28,7 @@ export async function startServer(dataDir: string, port: number): Promise<{ url:
       NUXT_SESSION_PASSWORD: 'bench-session-password-that-is-long-enough-000000',
       NUXT_S3_EMBEDDED_PORT: '0',
       NUXT_SMTP_EMBEDDED_PORT: '0',
+      ...env,
     },
     stdio: 'ignore',
   })

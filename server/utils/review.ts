@@ -108,6 +108,7 @@ export async function applyTransition(user: User, sketchId: string, action: Entr
       data: { current: await lastDecision(db, sketch.id), status: current.status },
     })
   }
+  if (check.to === 'approved' || check.to === 'withdrawn') forgetAtlasPages()
   await audit(db, { actorId: user.id, action: `entry.${action}`, subjectType: 'sketch', subjectId: sketch.id, detail: { from: sketch.status, to: check.to } })
   if (action !== 'submit') {
     const owner = await db.selectFrom('users').select(['name', 'email']).where('id', '=', sketch.user_id).executeTakeFirstOrThrow()
