@@ -59,6 +59,8 @@ export async function fillAtlas(db: Kysely<Database>, dialect: Dialect, size: At
       select ${id(5, 'n.i')}, ${id(1, `(n.i % ${OBSERVERS} + 1)`)}, 'Synthetic observer ' || (n.i % ${OBSERVERS} + 1), ${observedAt}, (${ageMilli}) / 1000.0, ${phase}, ${colongitude}, 0.5, ${kind}, 'Binoculars 10 × 50', 51.5, -1.7, ${at} from ${series(size.entries)}`,
     `insert into feature_tags (id, sketch_id, feature_id, user_id, disk_x, disk_y, view_orientation, view_flip, latitude, longitude, created_at)
       select ${id(6, 'n.i')}, ${id(5, `((n.i - 1) / ${size.pinsPerEntry} + 1)`)}, ${id(3, `((n.i * 48271) % 1000003 % ${size.features} + 1)`)}, ${id(1, `(((n.i - 1) / ${size.pinsPerEntry} + 1) % ${OBSERVERS} + 1)`)}, 0.1, 0.1, 'zenith-up', 'none', 0, 0, ${at} from ${series(size.entries * size.pinsPerEntry)}`,
+    `insert into atlas_feature_entries (feature_id, entry_id, entry_observed_at, entry_colongitude_deg)
+      select distinct t.feature_id, a.sketch_id, a.observed_at, a.colongitude_deg from feature_tags t join atlas_entries a on a.sketch_id = t.sketch_id`,
   ]
   const raw = (text: string) => sql.raw(text) as RawBuilder<unknown>
   await db.connection().execute(async (connection) => {
@@ -66,7 +68,7 @@ export async function fillAtlas(db: Kysely<Database>, dialect: Dialect, size: At
     // checked row by row while they go in.
     await raw(dialect === 'postgres' ? 'set session_replication_role = replica' : 'pragma foreign_keys = off').execute(connection)
     // Indexes are built once at the end from sorted data, far faster than kept up row by row.
-    const tables = `'observations', 'sketches', 'atlas_entries', 'feature_tags'`
+    const tables = `'observations', 'sketches', 'atlas_entries', 'feature_tags', 'atlas_feature_entries'`
     const indexes = (await raw(dialect === 'postgres'
       ? `select indexname as name, indexdef as definition from pg_indexes where tablename in (${tables}) and indexdef like 'CREATE INDEX%'`
       : `select name, sql as definition from sqlite_master where type = 'index' and sql is not null and tbl_name in (${tables})`,

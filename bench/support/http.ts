@@ -59,8 +59,26 @@ function percentile(sorted: number[], p: number): number {
   return sorted[lo]! + (sorted[hi]! - sorted[lo]!) * (rank - lo)
 }
 
-/** Runs `amount` requests over `connections` connections, paths drawn in turn from `paths`. */
-export async function measure(url: string, paths: string[], connections: number, amount: number): Promise<Timing> {
+/** The figures of several measurements taken together: every response time, and their combined rate. */
+export function summarize(times: number[], parts: Timing[]): Timing {
+  const sorted = [...times].sort((a, b) => a - b)
+  const seconds = parts.reduce((s, p) => s + p.requests / p.requestsPerSecond, 0)
+  return {
+    requests: sorted.length,
+    errors: parts.reduce((s, p) => s + p.errors, 0),
+    non2xx: parts.reduce((s, p) => s + p.non2xx, 0),
+    medianMs: percentile(sorted, 0.5),
+    p95Ms: percentile(sorted, 0.95),
+    meanMs: sorted.reduce((s, t) => s + t, 0) / sorted.length,
+    requestsPerSecond: sorted.length / seconds,
+  }
+}
+
+/**
+ * Runs `amount` requests over `connections` connections, paths drawn in turn from `paths`; `keep`, when
+ * given, collects the response times too.
+ */
+export async function measure(url: string, paths: string[], connections: number, amount: number, keep?: number[][]): Promise<Timing> {
   const times: number[] = []
   let next = 0
   const started = Date.now()
@@ -82,6 +100,7 @@ export async function measure(url: string, paths: string[], connections: number,
   const result = await done
   const elapsed = (Date.now() - started) / 1000
   times.sort((a, b) => a - b)
+  keep?.push(times)
   return {
     requests: times.length,
     errors: result.errors,

@@ -115,13 +115,50 @@ function rangeQuery(db: Kysely<Database>, q: AtlasQuery, order: Order, range: [n
     }
     return out.orderBy(order.key, dir).orderBy('sketch_id', dir).limit(limit)
   }
+  const cards = db.selectFrom('atlas_entries').select(CARD_COLUMNS).orderBy(order.key, dir).orderBy('sketch_id', dir)
   if (!q.feature) return keyed(atlasQuery(db, q)).select(CARD_COLUMNS)
-  // A feature's entries come from its pins. Order them on a narrow index of (id, date, colongitude) and
-  // read the cards of the page alone, not of every entry the feature appears in.
-  return db.selectFrom('atlas_entries').select(CARD_COLUMNS)
-    .where('sketch_id', 'in', keyed(atlasQuery(db, q)).select('sketch_id'))
-    .orderBy(order.key, dir)
-    .orderBy('sketch_id', dir)
+  if (!featureAlone(q)) {
+    // A feature with other filters: its entries come from its pins (as many as the feature has), and
+    // only the page's cards are read in full.
+    return cards.where('sketch_id', 'in', keyed(atlasQuery(db, q)).select('sketch_id'))
+  }
+  // A feature alone (the atlas filter, the feature's page): one range of the feature's published entries
+  // in listing order, then the page's cards.
+  if (order.key === 'age_days') throw new Error('a feature listing is by date or by lighting')
+  const key = order.key === 'observed_at' ? 'entry_observed_at' : 'entry_colongitude_deg'
+  let ids = db.selectFrom('atlas_feature_entries').select('entry_id').where('feature_id', '=', q.feature)
+  if (range) ids = ids.where('entry_colongitude_deg', '>=', range[0]).where('entry_colongitude_deg', '<=', range[1])
+  if (cursor) ids = ids.where(eb => eb(eb.refTuple(key, 'entry_id'), dir === 'asc' ? '>' : '<', eb.tuple(cursor.value, cursor.id)))
+  return cards.where('sketch_id', 'in', ids.orderBy(key, dir).orderBy('entry_id', dir).limit(limit))
+}
+
+// The keys a feature's own listing answers by itself; any other filter goes through the general query.
+const FEATURE_LISTING_KEYS = new Set(['feature', 'colongitudeMin', 'colongitudeMax', 'after', 'before', 'perPage'])
+
+function featureAlone(q: AtlasQuery): boolean {
+  return Object.entries(q).every(([k, v]) => v === undefined || FEATURE_LISTING_KEYS.has(k))
+}
+
+/**
+ * Brings a feature's listing up to date with its pins on published entries: for one entry (published,
+ * withdrawn, pinned or unpinned) or for one feature (after a merge). Withdrawal also removes the rows by
+ * cascade; calling it then is harmless.
+ */
+export async function refreshFeatureEntries(db: Kysely<Database>, of: { entryId: string } | { featureId: string }): Promise<void> {
+  const entryId = 'entryId' in of ? of.entryId : undefined
+  const featureId = 'featureId' in of ? of.featureId : undefined
+  let gone = db.deleteFrom('atlas_feature_entries')
+  gone = entryId ? gone.where('entry_id', '=', entryId) : gone.where('feature_id', '=', featureId!)
+  await gone.execute()
+  let pinned = db.selectFrom('feature_tags')
+    .innerJoin('atlas_entries', 'atlas_entries.sketch_id', 'feature_tags.sketch_id')
+    .select(['feature_tags.feature_id', 'atlas_entries.sketch_id', 'atlas_entries.observed_at', 'atlas_entries.colongitude_deg'])
+    .distinct()
+  pinned = entryId ? pinned.where('atlas_entries.sketch_id', '=', entryId) : pinned.where('feature_tags.feature_id', '=', featureId!)
+  await db.insertInto('atlas_feature_entries')
+    .columns(['feature_id', 'entry_id', 'entry_observed_at', 'entry_colongitude_deg'])
+    .expression(pinned)
+    .execute()
 }
 
 /** The queries one page runs, in order (the plan test reads them; a wrapped lighting range has two). */

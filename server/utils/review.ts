@@ -66,6 +66,7 @@ export async function publish(trx: Transaction<Database>, sketch: Sketch, at: st
     site_longitude: roundedCoordinate(row.longitude),
     published_at: at,
   }).execute()
+  await refreshFeatureEntries(trx, { entryId: sketch.id })
 }
 
 /**

@@ -90,10 +90,18 @@ describe('atlas query plans on SQLite', () => {
     expect(instrument).not.toMatch(bounded)
   })
 
-  it('a feature filter starts from the feature\'s pins, orders them on a narrow index and reads only the page\'s cards', async () => {
-    const [p] = await plans({ feature: FEATURE })
+  it('a feature filter reads the feature\'s own range of published entries in listing order, then the page\'s cards', async () => {
+    for (const query of [{ feature: FEATURE }, { feature: FEATURE, after: `2020-05-01T20:00:00.000Z~${AN_ENTRY}` }, { feature: FEATURE, colongitudeMin: 0 }]) {
+      const [p] = await plans(query)
+      expect(p).toMatch(/SEARCH atlas_feature_entries USING COVERING INDEX atlas_feature_entries_(observed|colongitude)_idx \(feature_id=\?/)
+      expect(p).toMatch(/atlas_entries USING INDEX sqlite_autoindex_atlas_entries_1 \(sketch_id=\?\)/)
+      expect(p).not.toMatch(/SCAN atlas_entries|SCAN atlas_feature_entries/)
+    }
+  })
+
+  it('a feature with another filter starts from the feature\'s pins and looks their entries up by key', async () => {
+    const [p] = await plans({ feature: FEATURE, instrument: 'telescope' })
     expect(p).toMatch(/feature_tags USING COVERING INDEX feature_tags_feature_idx \(feature_id=\?\)/)
-    expect(p).toMatch(/atlas_entries USING COVERING INDEX atlas_sketch_keys_idx \(sketch_id=\?\)/)
     expect(p).toMatch(/atlas_entries USING INDEX sqlite_autoindex_atlas_entries_1 \(sketch_id=\?\)/)
     expect(p).not.toMatch(/SCAN atlas_entries|SCAN feature_tags/)
   })
@@ -137,12 +145,20 @@ describe.skipIf(!postgresBinDir())('atlas query plans on PostgreSQL', () => {
     }
   })
 
-  it('a feature filter reads the feature\'s pins by index and sorts only those', async () => {
-    const [p] = await plans({ feature: FEATURE })
+  it('a feature filter reads the feature\'s own range of published entries in listing order, then the page\'s cards', async () => {
+    for (const query of [{ feature: FEATURE }, { feature: FEATURE, colongitudeMin: 0 }]) {
+      const [p] = await plans(query)
+      expect(p).toMatch(/Limit[\s\S]*Index Only Scan (Backward )?using atlas_feature_entries_(observed|colongitude)_idx on atlas_feature_entries/)
+      expect(p).toMatch(/Index Scan using atlas_entries_pkey on atlas_entries/)
+      expect(p).not.toMatch(/Seq Scan/)
+    }
+  })
+
+  it('a feature with another filter reads the feature\'s pins by index and cuts the page before reading cards', async () => {
+    const [p] = await plans({ feature: FEATURE, instrument: 'telescope' })
     expect(p).toMatch(/Index Only Scan (Backward )?using feature_tags_feature_idx on feature_tags/)
     expect(p).toMatch(/Index Scan using atlas_entries_pkey on atlas_entries/)
-    // The page is cut from the pins' entries before any card is read for it.
-    expect(p).toMatch(/Nested Loop[\s\S]*HashAggregate[\s\S]*Limit[\s\S]*feature_tags_feature_idx/)
+    expect(p).toMatch(/Limit[\s\S]*feature_tags_feature_idx/)
     expect(p).not.toMatch(/Seq Scan/)
   })
 })
