@@ -49,15 +49,9 @@ export const useAtlasFilters = defineStore('atlas-filters', () => {
 
   const active = computed(() => Object.keys(query.value).filter(k => !PAGE_KEYS.includes(k)).length)
 
-  /** The same filters at another page (a cursor from the API), or at the first. */
-  function pageQuery(at: { after?: string, before?: string }) {
-    const out = Object.fromEntries(Object.entries(query.value).filter(([k]) => !PAGE_KEYS.includes(k)))
-    return { ...out, ...at }
-  }
-
   function clear() {
     Object.assign(state, EMPTY)
   }
 
-  return { state, query, active, fromQuery, pageQuery, clear }
+  return { state, query, active, fromQuery, clear }
 })

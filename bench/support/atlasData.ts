@@ -2,7 +2,8 @@
 // (a row series and integer hashes) so a million entries load in a minute rather than an hour of round trips:
 // invented observers and features, observations, approved sketches, their atlas entries and pins.
 
-import { sql, type Kysely, type RawBuilder } from 'kysely'
+import SQLite from 'better-sqlite3'
+import { Kysely, SqliteDialect, sql, type RawBuilder } from 'kysely'
 import type { Database } from '../../db/schema'
 import { PHASE_NAMES } from '../../shared/observing/phases'
 
@@ -27,11 +28,21 @@ function helpers(dialect: Dialect) {
     : `'0000000${kind}-0000-4000-8000-' || lpad(to_hex(${n}), 12, '0')`
   const series = (n: number) => dialect === 'sqlite'
     ? `(with recursive s(i) as (select 1 union all select i + 1 from s where i < ${n}) select i from s) n`
-    : `generate_series(1, ${n}) as n(i)`
+    : `generate_series(1::bigint, ${n}) as n(i)`
   const instant = (seconds: string) => dialect === 'sqlite'
     ? `strftime('%Y-%m-%dT%H:%M:%fZ', ${seconds}, 'unixepoch')`
     : `to_char(to_timestamp(${seconds}) at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`
   return { id, series, instant }
+}
+
+/**
+ * A SQLite file opened for loading alone: out of write-ahead mode (which the app's own connection turns on,
+ * and which would log gigabytes for a million rows), so the rows go straight into the file.
+ */
+export function sqliteForLoading(file: string): Kysely<Database> {
+  const database = new SQLite(file)
+  database.pragma('journal_mode = off')
+  return new Kysely<Database>({ dialect: new SqliteDialect({ database }) })
 }
 
 /** Fills a migrated, empty database; returns the feature ids. */
@@ -60,7 +71,8 @@ export async function fillAtlas(db: Kysely<Database>, dialect: Dialect, size: At
     `insert into feature_tags (id, sketch_id, feature_id, user_id, disk_x, disk_y, view_orientation, view_flip, latitude, longitude, created_at)
       select ${id(6, 'n.i')}, ${id(5, `((n.i - 1) / ${size.pinsPerEntry} + 1)`)}, ${id(3, `((n.i * 48271) % 1000003 % ${size.features} + 1)`)}, ${id(1, `(((n.i - 1) / ${size.pinsPerEntry} + 1) % ${OBSERVERS} + 1)`)}, 0.1, 0.1, 'zenith-up', 'none', 0, 0, ${at} from ${series(size.entries * size.pinsPerEntry)}`,
     `insert into atlas_feature_entries (feature_id, entry_id, entry_observed_at, entry_colongitude_deg)
-      select distinct t.feature_id, a.sketch_id, a.observed_at, a.colongitude_deg from feature_tags t join atlas_entries a on a.sketch_id = t.sketch_id`,
+      select t.feature_id, a.sketch_id, a.observed_at, a.colongitude_deg from feature_tags t cross join atlas_entries a where a.sketch_id = t.sketch_id
+      on conflict do nothing`,
   ]
   const raw = (text: string) => sql.raw(text) as RawBuilder<unknown>
   await db.connection().execute(async (connection) => {
@@ -73,7 +85,10 @@ export async function fillAtlas(db: Kysely<Database>, dialect: Dialect, size: At
       ? `select indexname as name, indexdef as definition from pg_indexes where tablename in (${tables}) and indexdef like 'CREATE INDEX%'`
       : `select name, sql as definition from sqlite_master where type = 'index' and sql is not null and tbl_name in (${tables})`,
     ).execute(connection)).rows as { name: string, definition: string }[]
-    if (dialect === 'sqlite') await raw('pragma cache_size = -1000000').execute(connection)
+    if (dialect === 'sqlite') {
+      // One large transaction straight into the file: no write-ahead log of gigabytes, no syncs.
+      for (const pragma of ['journal_mode = off', 'synchronous = off', 'cache_size = -1000000']) await raw(`pragma ${pragma}`).execute(connection)
+    }
     await connection.transaction().execute(async (trx) => {
       for (const index of indexes) await raw(`drop index ${index.name}`).execute(trx)
       for (const text of statements) {
@@ -83,8 +98,12 @@ export async function fillAtlas(db: Kysely<Database>, dialect: Dialect, size: At
       }
       for (const index of indexes) await raw(index.definition).execute(trx)
     })
-    if (dialect === 'sqlite') await raw('pragma cache_size = -65536').execute(connection)
+    if (dialect === 'sqlite') {
+      for (const pragma of ['journal_mode = wal', 'synchronous = normal', 'cache_size = -65536']) await raw(`pragma ${pragma}`).execute(connection)
+    }
     await raw(dialect === 'postgres' ? 'set session_replication_role = origin' : 'pragma foreign_keys = on').execute(connection)
+    // Statistics for the planner (on SQLite from a sample of each index, as `pragma optimize` gathers them).
+    if (dialect === 'sqlite') await raw('pragma analysis_limit = 1000').execute(connection)
     await raw(dialect === 'postgres' ? 'vacuum analyze' : 'analyze').execute(connection)
   })
   return Array.from({ length: size.features }, (_, k) => syntheticId(3, k + 1))
