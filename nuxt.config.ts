@@ -20,6 +20,8 @@ export default defineNuxtConfig({
     dataDir: '.data',
     databaseUrl: '',
     seedDemo: '',
+    // Published atlas pages kept ready to send (0 turns the cache off).
+    atlasCacheEntries: 500,
     session: {
       password: '',
       name: 'shadowline-session',

@@ -8,7 +8,7 @@ import { mkdirSync, rmSync, writeFileSync } from 'node:fs'
 import { loadavg } from 'node:os'
 import { join } from 'node:path'
 import { buildSyntheticDb } from './support/synthetic'
-import { combine, freshDataDir, machine, measure, random, root, startServer, type Timing } from './support/http'
+import { summarize, freshDataDir, machine, measure, random, root, startServer, type Timing } from './support/http'
 
 const FEATURES = 20_000
 const SKETCHES = 20_000
@@ -37,14 +37,15 @@ try {
   await measure(server.url, ['/api/health'], CONNECTIONS, 500)
   await measure(server.url, queries, CONNECTIONS, 500)
   const rounds: Record<'trivial' | 'search' | 'page', Timing[]> = { trivial: [], search: [], page: [] }
+  const times: Record<'trivial' | 'search' | 'page', number[][]> = { trivial: [], search: [], page: [] }
   for (let round = 0; round < ROUNDS; round += 1) {
-    rounds.trivial.push(await measure(server.url, ['/api/health'], CONNECTIONS, AMOUNT / ROUNDS, true))
-    rounds.search.push(await measure(server.url, queries, CONNECTIONS, AMOUNT / ROUNDS, true))
-    rounds.page.push(await measure(server.url, pages, CONNECTIONS, AMOUNT / ROUNDS, true))
+    rounds.trivial.push(await measure(server.url, ['/api/health'], CONNECTIONS, AMOUNT / ROUNDS, times.trivial))
+    rounds.search.push(await measure(server.url, queries, CONNECTIONS, AMOUNT / ROUNDS, times.search))
+    rounds.page.push(await measure(server.url, pages, CONNECTIONS, AMOUNT / ROUNDS, times.page))
   }
-  const trivial = combine(rounds.trivial)
-  const search = combine(rounds.search)
-  const page = combine(rounds.page)
+  const trivial = summarize(times.trivial.flat(), rounds.trivial)
+  const search = summarize(times.search.flat(), rounds.search)
+  const page = summarize(times.page.flat(), rounds.page)
   const results = {
     generatedAt: new Date().toISOString(),
     machine: machine(),

@@ -198,6 +198,14 @@ export interface SketchReviewsTable {
   created_at: CreatedAt
 }
 
+/** A published entry that pins a feature, with the entry's sort keys: a feature's listing in index order. */
+export interface AtlasFeatureEntriesTable {
+  feature_id: string
+  entry_id: string
+  entry_observed_at: Instant
+  entry_colongitude_deg: number
+}
+
 export interface AtlasEntriesTable {
   sketch_id: string
   observer_id: string
@@ -311,6 +319,7 @@ export interface Database {
   sketch_revisions: SketchRevisionsTable
   sketch_reviews: SketchReviewsTable
   atlas_entries: AtlasEntriesTable
+  atlas_feature_entries: AtlasFeatureEntriesTable
   features: FeaturesTable
   feature_names: FeatureNamesTable
   feature_name_words: FeatureNameWordsTable

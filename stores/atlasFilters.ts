@@ -13,13 +13,17 @@ export interface AtlasFilterState {
   instrument: string
   from: string
   to: string
-  page: number
+  /** The page: the card it continues after or ends before (server/utils/atlas.ts), empty for the first. */
+  after: string
+  before: string
 }
 
 const EMPTY: AtlasFilterState = {
   phase: '', ageMin: '', ageMax: '', colongitudeMin: '', colongitudeMax: '',
-  feature: '', formation: '', observer: '', instrument: '', from: '', to: '', page: 1,
+  feature: '', formation: '', observer: '', instrument: '', from: '', to: '', after: '', before: '',
 }
+
+const PAGE_KEYS = ['after', 'before']
 
 /**
  * The atlas filters. The URL is the source of truth, so a view can be shared and the back button returns
@@ -31,8 +35,7 @@ export const useAtlasFilters = defineStore('atlas-filters', () => {
   function fromQuery(query: LocationQuery) {
     for (const key of Object.keys(EMPTY) as (keyof AtlasFilterState)[]) {
       const value = query[key]
-      if (key === 'page') state.page = Math.max(1, Number(value) || 1)
-      else state[key] = typeof value === 'string' ? value : ''
+      state[key] = typeof value === 'string' ? value : ''
     }
   }
 
@@ -40,15 +43,12 @@ export const useAtlasFilters = defineStore('atlas-filters', () => {
   const query = computed(() => {
     const out: Record<string, string> = {}
     for (const [key, value] of Object.entries(state)) {
-      if (key === 'page') {
-        if (value !== 1) out.page = String(value)
-      }
-      else if (value !== '') out[key] = String(value)
+      if (value !== '') out[key] = value
     }
     return out
   })
 
-  const active = computed(() => Object.keys(query.value).filter(k => k !== 'page').length)
+  const active = computed(() => Object.keys(query.value).filter(k => !PAGE_KEYS.includes(k)).length)
 
   function clear() {
     Object.assign(state, EMPTY)

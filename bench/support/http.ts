@@ -13,7 +13,7 @@ export function freshDataDir(name: string): string {
   return mkdtempSync(join(tmpdir(), `shadowline-bench-${name}-`))
 }
 
-export async function startServer(dataDir: string, port: number): Promise<{ url: string, stop: () => void }> {
+export async function startServer(dataDir: string, port: number, env: Record<string, string> = {}): Promise<{ url: string, stop: () => void }> {
   const entry = join(root, '.output/server/index.mjs')
   if (!existsSync(entry)) throw new Error('Build the app first: npm run build')
   const child = spawn(process.execPath, [entry], {
@@ -28,6 +28,7 @@ export async function startServer(dataDir: string, port: number): Promise<{ url:
       NUXT_SESSION_PASSWORD: 'bench-session-password-that-is-long-enough-000000',
       NUXT_S3_EMBEDDED_PORT: '0',
       NUXT_SMTP_EMBEDDED_PORT: '0',
+      ...env,
     },
     stdio: 'ignore',
   })
@@ -48,8 +49,6 @@ export interface Timing {
   p95Ms: number
   meanMs: number
   requestsPerSecond: number
-  /** Every response time, ms, when asked for (to combine rounds); left out of the written figures. */
-  times?: number[]
 }
 
 function percentile(sorted: number[], p: number): number {
@@ -60,8 +59,26 @@ function percentile(sorted: number[], p: number): number {
   return sorted[lo]! + (sorted[hi]! - sorted[lo]!) * (rank - lo)
 }
 
-/** Runs `amount` requests over `connections` connections, paths drawn in turn from `paths`. */
-export async function measure(url: string, paths: string[], connections: number, amount: number, keepTimes = false): Promise<Timing> {
+/** The figures of several measurements taken together: every response time, and their combined rate. */
+export function summarize(times: number[], parts: Timing[]): Timing {
+  const sorted = [...times].sort((a, b) => a - b)
+  const seconds = parts.reduce((s, p) => s + p.requests / p.requestsPerSecond, 0)
+  return {
+    requests: sorted.length,
+    errors: parts.reduce((s, p) => s + p.errors, 0),
+    non2xx: parts.reduce((s, p) => s + p.non2xx, 0),
+    medianMs: percentile(sorted, 0.5),
+    p95Ms: percentile(sorted, 0.95),
+    meanMs: sorted.reduce((s, t) => s + t, 0) / sorted.length,
+    requestsPerSecond: sorted.length / seconds,
+  }
+}
+
+/**
+ * Runs `amount` requests over `connections` connections, paths drawn in turn from `paths`; `keep`, when
+ * given, collects the response times too.
+ */
+export async function measure(url: string, paths: string[], connections: number, amount: number, keep?: number[][]): Promise<Timing> {
   const times: number[] = []
   let next = 0
   const started = Date.now()
@@ -83,6 +100,7 @@ export async function measure(url: string, paths: string[], connections: number,
   const result = await done
   const elapsed = (Date.now() - started) / 1000
   times.sort((a, b) => a - b)
+  keep?.push(times)
   return {
     requests: times.length,
     errors: result.errors,
@@ -91,22 +109,6 @@ export async function measure(url: string, paths: string[], connections: number,
     p95Ms: percentile(times, 0.95),
     meanMs: times.reduce((s, t) => s + t, 0) / times.length,
     requestsPerSecond: times.length / elapsed,
-    ...(keepTimes ? { times } : {}),
-  }
-}
-
-/** One timing from several rounds of one route: percentiles over every response of every round. */
-export function combine(rounds: Timing[]): Timing {
-  const times = rounds.flatMap(r => r.times ?? []).sort((a, b) => a - b)
-  const seconds = rounds.reduce((sum, r) => sum + r.requests / r.requestsPerSecond, 0)
-  return {
-    requests: times.length,
-    errors: rounds.reduce((sum, r) => sum + r.errors, 0),
-    non2xx: rounds.reduce((sum, r) => sum + r.non2xx, 0),
-    medianMs: percentile(times, 0.5),
-    p95Ms: percentile(times, 0.95),
-    meanMs: times.reduce((s, t) => s + t, 0) / times.length,
-    requestsPerSecond: times.length / seconds,
   }
 }
 

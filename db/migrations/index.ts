@@ -8,6 +8,7 @@ import * as features from './2026-12-02-07-features'
 import * as sessionsOutboxRemovals from './2026-12-02-10-sessions-outbox-removals'
 import * as formations from './2026-12-02-35-formations'
 import * as nameSearchKeys from './2026-12-02-36-name-search-keys'
+import * as atlasReadPath from './2026-12-02-40-atlas-read-path'
 
 // Migrations are imported statically so they survive the server bundle.
 // Add each new migration here under its file name; names sort by date.
@@ -21,6 +22,7 @@ export const migrations: Record<string, Migration> = {
   '2026-12-02-10-sessions-outbox-removals': sessionsOutboxRemovals,
   '2026-12-02-35-formations': formations,
   '2026-12-02-36-name-search-keys': nameSearchKeys,
+  '2026-12-02-40-atlas-read-path': atlasReadPath,
 }
 
 export const migrationProvider: MigrationProvider = {

@@ -5,6 +5,7 @@ import type { Database, Feature } from '../../db/schema'
 import { nameKey, similarity, trigrams } from '#shared/features/names'
 import { distanceFromTerminator, meanPosition } from '#shared/features/position'
 import { featureIsVisible } from './privacy'
+import { refreshFeatureEntries } from './atlas'
 
 type Db = Kysely<Database>
 
@@ -200,6 +201,8 @@ export async function mergeFeatures(db: Db, fromId: string, intoId: string): Pro
     if (live.length !== 2) throw createError({ status: 404, message: 'Both features must exist and not be merged already.' })
     await trx.updateTable('feature_names').set({ feature_id: intoId, kind: 'alias' }).where('feature_id', '=', fromId).execute()
     await trx.updateTable('feature_tags').set({ feature_id: intoId }).where('feature_id', '=', fromId).execute()
+    await refreshFeatureEntries(trx, { featureId: fromId })
+    await refreshFeatureEntries(trx, { featureId: intoId })
     await trx.updateTable('features').set({ merged_into: intoId }).where('merged_into', '=', fromId).execute()
     await trx.updateTable('features').set({ merged_into: intoId, pin_count: 0, updated_at: new Date().toISOString() }).where('id', '=', fromId).execute()
     // A link to a reference formation follows the names, unless the feature kept has its own.

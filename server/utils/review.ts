@@ -66,6 +66,7 @@ export async function publish(trx: Transaction<Database>, sketch: Sketch, at: st
     site_longitude: roundedCoordinate(row.longitude),
     published_at: at,
   }).execute()
+  await refreshFeatureEntries(trx, { entryId: sketch.id })
 }
 
 /**
@@ -108,6 +109,7 @@ export async function applyTransition(user: User, sketchId: string, action: Entr
       data: { current: await lastDecision(db, sketch.id), status: current.status },
     })
   }
+  if (check.to === 'approved' || check.to === 'withdrawn') forgetAtlasPages()
   await audit(db, { actorId: user.id, action: `entry.${action}`, subjectType: 'sketch', subjectId: sketch.id, detail: { from: sketch.status, to: check.to } })
   if (action !== 'submit') {
     const owner = await db.selectFrom('users').select(['name', 'email']).where('id', '=', sketch.user_id).executeTakeFirstOrThrow()

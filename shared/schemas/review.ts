@@ -24,6 +24,9 @@ export const QueueQuery = z.object({
   perPage: z.coerce.number().int().min(1).max(100).default(20),
 })
 
+/** `value~id`: an instant or a number of degrees or days, then an entry id. */
+const AtlasCursor = z.string().regex(/^[0-9TZ:.+-]{1,32}~[0-9a-f-]{36}$/, 'This page link is not valid: start from the first page.')
+
 export const AtlasQuery = z.object({
   phase: Phase.optional(),
   ageMin: z.coerce.number().min(0).max(30).optional(),
@@ -38,7 +41,9 @@ export const AtlasQuery = z.object({
   instrument: InstrumentKind.optional(),
   from: LocalDate.optional(),
   to: LocalDate.optional(),
-  page: z.coerce.number().int().min(1).max(100_000).default(1),
+  /** Where a page starts or ends: the sort value and id of the card beside it (see server/utils/atlas.ts). */
+  after: AtlasCursor.optional(),
+  before: AtlasCursor.optional(),
   perPage: z.coerce.number().int().min(1).max(60).default(24),
 })
 

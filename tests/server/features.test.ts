@@ -96,6 +96,9 @@ describe('pins', () => {
     const sketch = await savedSketch(app.url, observer, observations[2]!.id)
     const a = (await observer.post(`/api/sketches/${sketch}/tags`, { x: 0.3, y: -0.1, name: 'Twin peaks' })).body.feature.id
     const b = (await observer.post(`/api/sketches/${sketch}/tags`, { x: 0.31, y: -0.1, name: 'Double mountain' })).body.feature.id
+    await observer.post(`/api/entries/${sketch}/submit`)
+    await moderator.post(`/api/entries/${sketch}/decision`, { decision: 'approve' })
+    expect((await visitor.get(`/api/atlas?feature=${a}`)).body.items.map((e: any) => e.id)).toEqual([sketch])
     expect((await observer.post(`/api/features/${a}/merge`, { into: b })).status).toBe(403)
     expect((await moderator.post(`/api/features/${a}/merge`, { into: a })).status).toBe(400)
     expect((await moderator.post(`/api/features/${a}/merge`, { into: b })).status).toBe(200)
@@ -104,6 +107,10 @@ describe('pins', () => {
     const kept = (await observer.get(`/api/features/${b}`)).body
     expect(kept.aliases).toEqual(['Twin peaks'])
     expect(kept.feature.pinCount).toBe(2)
+    // The published entry now lists under the feature it became, once, and no longer under the merged one.
+    expect(kept.entries.map((e: any) => e.id)).toEqual([sketch])
+    expect((await visitor.get(`/api/atlas?feature=${b}`)).body.items.map((e: any) => e.id)).toEqual([sketch])
+    expect((await visitor.get(`/api/atlas?feature=${a}`)).body.items).toEqual([])
     expect((await observer.get(`/api/sketches/${sketch}/tags`)).body.every((p: any) => p.feature.id === b)).toBe(true)
   })
 

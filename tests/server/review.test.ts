@@ -184,6 +184,68 @@ describe('the atlas', () => {
     expect((await visitor.get('/api/atlas?colongitudeMin=400')).status).toBe(400)
   })
 
+  it('pages by links that name the card they continue from, forwards and back, also across 0° of colongitude', async () => {
+    const visitor = new Client(app.url)
+    const walk = async (filters: string, expected: string[]) => {
+      const forward: string[] = []
+      const links: (string | null)[] = []
+      let lastCount = 0
+      let path = `/api/atlas?perPage=2${filters}`
+      for (let guard = 0; guard < 100; guard += 1) {
+        const page = (await visitor.get(path)).body
+        forward.push(...page.items.map((i: any) => i.id))
+        links.push(page.previous)
+        lastCount = page.items.length
+        if (!page.next) break
+        path = `/api/atlas?perPage=2${filters}&after=${encodeURIComponent(page.next)}`
+      }
+      expect(forward).toEqual(expected)
+      // Back from the last page by the previous links, to the first page, which has none.
+      expect(links[0]).toBeNull()
+      const back: string[] = []
+      let previous = links[links.length - 1]
+      while (previous) {
+        const page = (await visitor.get(`/api/atlas?perPage=2${filters}&before=${encodeURIComponent(previous)}`)).body
+        back.unshift(...page.items.map((i: any) => i.id))
+        previous = page.previous
+      }
+      expect(back).toEqual(expected.slice(0, expected.length - lastCount))
+    }
+    const all = (await visitor.get('/api/atlas?perPage=60')).body.items
+    expect(all.length).toBeGreaterThan(2)
+    // Newest first (observed_at, then id, both descending): common practice for keyset pages is a unique order.
+    const newest = [...all].sort((a: any, b: any) => (b.observedAt + b.id).localeCompare(a.observedAt + a.id)).map((i: any) => i.id)
+    await walk('', newest)
+    // 200° up to 360°, then 0° up to 199.9°: every entry, in that order.
+    const key = (i: any) => [i.colongitudeDeg >= 200 ? 0 : 1, i.colongitudeDeg, i.id] as const
+    const byLight = [...all].sort((a: any, b: any) => {
+      const [x, y] = [key(a), key(b)]
+      return x[0] - y[0] || x[1] - y[1] || x[2].localeCompare(y[2])
+    }).map((i: any) => i.id)
+    await walk('&colongitudeMin=200&colongitudeMax=199.9', byLight)
+    expect((await visitor.get('/api/atlas?colongitudeMin=20&after=2026-01-01T00:00:00.000Z~00000000-0000-4000-8000-000000000000')).status).toBe(400)
+    expect((await visitor.get('/api/atlas?after=not-a-card')).status).toBe(400)
+  })
+
+  it('answers a repeat visit with 304, and shows an approval or a withdrawal at once', async () => {
+    const visitor = new Client(app.url)
+    const first = await fetch(`${app.url}/api/atlas`)
+    const etag = first.headers.get('etag')
+    expect(etag).toMatch(/^W\/".+"$/)
+    expect(first.headers.get('cache-control')).toBe('public, max-age=30')
+    expect((await fetch(`${app.url}/api/atlas`, { headers: { 'if-none-match': etag! } })).status).toBe(304)
+    const before = (await visitor.get('/api/atlas?perPage=60')).body.items.map((i: any) => i.id)
+
+    const id = await savedSketch(observations[4]!.id)
+    await observer.post(`/api/entries/${id}/submit`)
+    expect((await decide(moderator, id, 'approve')).body.status).toBe('approved')
+    expect((await visitor.get('/api/atlas?perPage=60')).body.items.map((i: any) => i.id)).toEqual(expect.arrayContaining([...before, id]))
+    expect((await fetch(`${app.url}/api/atlas`, { headers: { 'if-none-match': etag! } })).status).toBe(200)
+
+    expect((await decide(moderator, id, 'withdraw', 'Withdrawn while the pins are checked.')).body.status).toBe('withdrawn')
+    expect((await visitor.get('/api/atlas?perPage=60')).body.items.map((i: any) => i.id)).not.toContain(id)
+  })
+
   it('serves published images to anyone and unpublished ones to no visitor', async () => {
     const visitor = new Client(app.url)
     const published = (await visitor.get('/api/atlas')).body.items[0]

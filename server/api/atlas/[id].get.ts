@@ -3,12 +3,13 @@ import type { StoredCircumstances } from '#shared/observing/night'
 
 const validParams = parseWith(IdParams)
 const SAME_LIGHT_DEG = 5
+const SAME_LIGHT = 12
 
 // Public: one published entry, what it shows in plain terms, and others drawn under the same lighting.
 export default defineEventHandler(async (event) => {
   const { id } = await getValidatedRouterParams(event, validParams)
   const db = useDb()
-  const row = await db.selectFrom('atlas_entries').selectAll().where('sketch_id', '=', id).executeTakeFirst()
+  const row = await db.selectFrom('atlas_entries').select(CARD_COLUMNS).where('sketch_id', '=', id).executeTakeFirst()
   if (!row) throw createError({ status: 404, message: 'No such entry in the atlas.' })
   const observation = await db.selectFrom('sketches')
     .innerJoin('observations', 'observations.id', 'sketches.observation_id')
@@ -16,14 +17,16 @@ export default defineEventHandler(async (event) => {
     .where('sketches.id', '=', id)
     .executeTakeFirstOrThrow()
   const c = JSON.parse(observation.circumstances) as StoredCircumstances
-  const lo = (row.colongitude_deg - SAME_LIGHT_DEG + 360) % 360
-  const hi = (row.colongitude_deg + SAME_LIGHT_DEG) % 360
-  const sameLight = await atlasQuery(db, { colongitudeMin: lo, colongitudeMax: hi, page: 1, perPage: 12 })
-    .selectAll()
-    .where('sketch_id', '!=', id)
-    .orderBy('observed_at', 'desc')
-    .limit(12)
-    .execute()
+  // The nearest in lighting on either side of this entry, within a few degrees: two short index reads.
+  const lighting = {
+    colongitudeMin: (row.colongitude_deg - SAME_LIGHT_DEG + 360) % 360,
+    colongitudeMax: (row.colongitude_deg + SAME_LIGHT_DEG) % 360,
+    perPage: SAME_LIGHT / 2,
+  }
+  const here = cursorOf(row, atlasOrder(lighting))
+  const darker = await atlasPage(db, { ...lighting, before: here })
+  const lighter = await atlasPage(db, { ...lighting, after: here })
+  const sameLight = [...darker.items, ...lighter.items].filter(e => e.sketch_id !== id)
   return {
     entry: atlasCard(row),
     // Only the disk's geometry leaves the server, not the site-specific altitude and azimuth.

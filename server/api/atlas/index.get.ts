@@ -2,10 +2,12 @@ import { AtlasQuery } from '#shared/schemas/review'
 
 const validQuery = parseWith(AtlasQuery)
 
-// Public: the published atlas, filtered by phase, lighting, feature, observer, instrument and date.
+// Public: the published atlas, filtered by phase, lighting, feature, observer, instrument and date, one
+// page at a time (the page links carry the card they continue from).
 export default defineEventHandler(async (event) => {
   const q = await getValidatedQuery(event, validQuery)
-  const rows = await atlasPage(useDb(), q).execute()
-  setResponseHeader(event, 'cache-control', 'public, max-age=30')
-  return { items: rows.slice(0, q.perPage).map(atlasCard), hasMore: rows.length > q.perPage, page: q.page, perPage: q.perPage }
+  return sendPublicPage(event, `atlas ${JSON.stringify(q)}`, async () => {
+    const page = await atlasPage(useDb(), q)
+    return { items: page.items.map(atlasCard), next: page.next, previous: page.previous, perPage: q.perPage }
+  })
 })

@@ -12,14 +12,7 @@ export default defineEventHandler(async (event) => {
     .executeTakeFirst()
   if (!feature) throw createError({ status: 404, message: 'No such feature.' })
   if (feature.merged_into) return { mergedInto: feature.merged_into }
-  const entries = await db.selectFrom('feature_tags')
-    .innerJoin('atlas_entries', 'atlas_entries.sketch_id', 'feature_tags.sketch_id')
-    .selectAll('atlas_entries')
-    .where('feature_tags.feature_id', '=', id)
-    .orderBy('atlas_entries.colongitude_deg')
-    .limit(500)
-    .execute()
-  const cards = [...new Map(entries.map(e => [e.sketch_id, atlasCard(e)])).values()]
+  const cards = (await featureEntries(db, id, 500)).map(atlasCard)
   const colongitudes = cards.map(c => c.colongitudeDeg)
   return {
     feature: {

@@ -10,6 +10,7 @@ export default defineEventHandler(async (event) => {
   const { into } = await readValidatedBody(event, validBody)
   const db = useDb()
   await mergeFeatures(db, id, into)
+  forgetAtlasPages()
   await audit(db, { actorId: user.id, action: 'feature.merged', subjectType: 'feature', subjectId: id, detail: { into } })
   return { mergedInto: into }
 })
