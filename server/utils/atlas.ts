@@ -16,6 +16,7 @@ export function atlasCard(row: AtlasEntry) {
     instrumentLabel: row.instrument_label,
     site: { latitude: row.site_latitude, longitude: row.site_longitude },
     publishedAt: row.published_at,
+    group: row.group_id && row.group_name ? { id: row.group_id, name: row.group_name } : null,
   }
 }
 
@@ -44,6 +45,8 @@ export function atlasQuery(db: Kysely<Database>, q: AtlasQuery) {
       .select('feature_tags.sketch_id')
       .where('feature_tags.feature_id', '=', feature))
   }
+  // Only a listed group has a name in the atlas, so only a listed group can be filtered by.
+  if (q.group) query = query.where('group_id', '=', q.group).where('group_name', 'is not', null)
   if (q.instrument) query = query.where('instrument_kind', '=', q.instrument)
   if (q.from) query = query.where('observed_at', '>=', `${q.from}T00:00:00.000Z`)
   if (q.to) query = query.where('observed_at', '<=', `${q.to}T23:59:59.999Z`)

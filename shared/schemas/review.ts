@@ -33,6 +33,8 @@ export const AtlasQuery = z.object({
   colongitudeMax: z.coerce.number().min(0).max(360).optional(),
   feature: z.uuid().optional(),
   observer: z.uuid().optional(),
+  /** A listed group's id: its members' entries. */
+  group: z.uuid().optional(),
   instrument: InstrumentKind.optional(),
   from: LocalDate.optional(),
   to: LocalDate.optional(),
