@@ -56,7 +56,7 @@ async function claim(db: Kysely<Database>, key: string, at: string): Promise<boo
   const result = await db.insertInto('campaign_mail_log').values({ key, sent_at: at })
     .onConflict(oc => oc.column('key').doNothing())
     .executeTakeFirst()
-  return Number(result.numInsertedRows ?? 0n) === 1
+  return Number(result.numInsertedOrUpdatedRows ?? 0n) === 1
 }
 
 /**

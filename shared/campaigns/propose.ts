@@ -4,7 +4,7 @@
 
 import { localDateTimeOf } from '../observing/clock'
 import type { ObservingSite } from '../observing/night'
-import { observingWindows, type ObservingWindow } from '../observing/windows'
+import { observingWindows, rateWindow, type ObservingWindow } from '../observing/windows'
 import type { CampaignKind } from './types'
 
 export interface ProposedNight {
@@ -33,12 +33,15 @@ export function roundToQuarterHour(time: string): string {
 }
 
 /**
- * The nights of one kind within `days` local dates from `fromLocalDate`: a window is proposed when it is
- * rated good or low (low windows still show the thin crescent over a clear horizon), never when the Moon
- * is within the Sun's glare or below the horizon.
+ * The first series of one kind (the waxing evenings, or the waning mornings) within `days` local dates from
+ * `fromLocalDate`: a window is proposed when it is rated good or low (a low Moon still shows over a clear
+ * horizon), never when the Moon is within the Sun's glare or below the horizon.
  */
 export function proposeCampaign(kind: CampaignKind, fromLocalDate: string, days: number, site: ObservingSite): CampaignProposal {
-  const windows = observingWindows(fromLocalDate, days, site).filter(w => w.kind === kind)
+  const all = observingWindows(fromLocalDate, days, site)
+  const start = all.findIndex(w => w.kind === kind)
+  const end = start < 0 ? start : all.findIndex((w, i) => i > start && w.kind !== kind)
+  const windows = start < 0 ? [] : all.slice(start, end < 0 ? undefined : end)
   const nights = windows.map(w => ({
     localDate: w.localDate,
     at: w.at,
@@ -54,4 +57,9 @@ export function proposeCampaign(kind: CampaignKind, fromLocalDate: string, days:
     nights,
     clockTime: first ? roundToQuarterHour(localDateTimeOf(new Date(first.at), site.timeZone).time) : null,
   }
+}
+
+/** The clock time a campaign observes at by default: its first night's window (twilight), rounded. */
+export function defaultClockTime(kind: CampaignKind, firstNight: string, site: ObservingSite): string {
+  return roundToQuarterHour(localDateTimeOf(new Date(rateWindow(firstNight, kind, site).at), site.timeZone).time)
 }

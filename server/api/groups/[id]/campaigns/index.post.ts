@@ -1,6 +1,6 @@
 import { GroupParams } from '#shared/schemas/group'
 import { CampaignBody } from '#shared/campaigns/schema'
-import { proposeCampaign } from '#shared/campaigns/propose'
+import { defaultClockTime } from '#shared/campaigns/propose'
 
 const params = parseWith(GroupParams)
 const validate = parseWith(CampaignBody)
@@ -14,9 +14,7 @@ export default defineEventHandler(async (event) => {
   })
   const nights = [...input.nights].sort()
   // By default the end of civil twilight (or start of morning twilight) of the first night, rounded.
-  const clockTime = input.clockTime
-    ?? proposeCampaign(input.kind, nights[0]!, 1, groupObservingSite(site)).clockTime
-    ?? (input.kind === 'evening' ? '21:00' : '05:00')
+  const clockTime = input.clockTime ?? defaultClockTime(input.kind, nights[0]!, groupObservingSite(site))
   const at = nowIso()
   const campaign = {
     id: newId(),
