@@ -49,7 +49,7 @@ export interface ProgressGrid {
   rows: GridRow[]
   /** Per night: members who logged anything. */
   nightTotals: number[]
-  /** Per night: members at each state or beyond. */
+  /** How many database queries built the grid (a fixed number, whatever the class size). */
   queries: number
 }
 
@@ -70,4 +70,73 @@ export interface ComparisonMember {
   compassOffsetDeg: number | null
   compassSpreadDeg: number | null
   altitudeMeanResidualDeg: number | null
+}
+
+export interface GroupListItem {
+  id: string
+  name: string
+  description: string
+  visibility: 'private' | 'listed'
+  role: GroupRole
+  status: 'active' | 'pending'
+  members: number | null
+}
+
+export interface GroupSiteView {
+  id: string
+  name: string
+  latitude: number
+  longitude: number
+  elevation: number
+  timeZone: string
+}
+
+export interface GroupView {
+  id: string
+  name: string
+  description: string
+  visibility: 'private' | 'listed'
+  myRole: GroupRole
+  reminders: boolean
+  members: { id: string, name: string, role: GroupRole, status: 'active' | 'pending' }[]
+  sites: GroupSiteView[]
+  campaigns: { id: string, title: string, kind: CampaignKind, clockTime: string, first: string | null, last: string | null, nights: number }[]
+  joinCode: string | null
+  joinApproval: boolean | null
+  invitations: { id: string, email: string, expiresAt: string, sentAt: string }[]
+}
+
+export interface CampaignCard {
+  id: string
+  title: string
+  groupId: string
+  groupName: string
+  kind: CampaignKind
+  brief: string
+  asks: { sketch: boolean, altitude: boolean, azimuth: boolean }
+  site: { id: string, name: string, timeZone: string }
+  night: { number: number, of: number, localDate: string, clockTime: string, isToday: boolean }
+  moon: { altitudeDeg: number, azimuthDeg: number, illuminatedFraction: number }
+  loggedObservationId: string | null
+  nightsLogged: number
+}
+
+export interface CampaignView extends CampaignSummary {
+  myRole: GroupRole
+  predictions: { localDate: string, at: string, altitudeDeg: number, azimuthDeg: number, illuminatedFraction: number }[]
+}
+
+export interface CampaignComment {
+  id: string
+  localDate: string
+  body: string
+  at: string
+  member: { id: string, name: string }
+  author: string
+}
+
+export interface ComparisonView {
+  campaign: CampaignSummary
+  predictions: { localDate: string, at: string, altitudeDeg: number, azimuthDeg: number }[]
+  members: ComparisonMember[]
 }

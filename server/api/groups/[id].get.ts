@@ -22,10 +22,10 @@ export default defineEventHandler(async (event) => {
     .where('group_id', '=', id).orderBy('created_at', 'desc').execute()
   const invitations = leading
     ? await db.selectFrom('group_invitations')
-      .select(['id', 'email', 'expires_at', 'created_at'])
-      .where('group_id', '=', id).where('used_at', 'is', null).where('revoked_at', 'is', null)
-      .where('expires_at', '>', nowIso())
-      .orderBy('created_at', 'desc').execute()
+        .select(['id', 'email', 'expires_at', 'created_at'])
+        .where('group_id', '=', id).where('used_at', 'is', null).where('revoked_at', 'is', null)
+        .where('expires_at', '>', nowIso())
+        .orderBy('created_at', 'desc').execute()
     : []
   return {
     id: group.id,

@@ -11,7 +11,7 @@ export default defineEventHandler(async (event) => {
   const active = rows.filter(r => r.status === 'active').map(r => r.id)
   const counts = active.length
     ? await db.selectFrom('group_members').select(['group_id', eb => eb.fn.countAll<number>().as('n')])
-      .where('group_id', 'in', active).where('status', '=', 'active').groupBy('group_id').execute()
+        .where('group_id', 'in', active).where('status', '=', 'active').groupBy('group_id').execute()
     : []
   const countOf = new Map(counts.map(c => [c.group_id, Number(c.n)]))
   return rows.map(r => ({

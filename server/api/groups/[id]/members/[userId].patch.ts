@@ -5,9 +5,10 @@ const validate = parseWith(MemberPatch)
 
 // Approving a request (leader or co-leader) and naming co-leaders (the leader only).
 export default defineEventHandler(async (event) => {
+  const user = await requireRole(event, 'learner')
   const { id, userId } = await getValidatedRouterParams(event, params)
   const input = await readValidatedBody(event, validate)
-  const { user } = await requireGroupRole(event, id, input.role ? 'leader' : 'co-leader')
+  await groupAccess(user, id, input.role ? 'leader' : 'co-leader')
   const db = useDb()
   const target = await db.selectFrom('group_members').selectAll()
     .where('group_id', '=', id).where('user_id', '=', userId).executeTakeFirst()
