@@ -5,6 +5,7 @@ import type { Database } from '../../db/schema'
 import { zonedInstant } from '#shared/observing/clock'
 import { predictedAtClockTime } from '#shared/observing/worksheet'
 import type { ComparisonMember, ProgressGrid } from '#shared/campaigns/types'
+import { enqueueMail } from './mail'
 
 function secret(): string {
   return process.env.NUXT_SESSION_PASSWORD || String(useRuntimeConfig().session?.password ?? '')
@@ -56,7 +57,7 @@ async function claim(db: Kysely<Database>, key: string, at: string): Promise<boo
   const result = await db.insertInto('campaign_mail_log').values({ key, sent_at: at })
     .onConflict(oc => oc.column('key').doNothing())
     .executeTakeFirst()
-  return Number(result.numInsertedOrUpdatedRows ?? 0n) === 1
+  return Number(result.numInsertedOrUpdatedRows ?? 0) === 1
 }
 
 /**
