@@ -59,7 +59,7 @@ function percentile(sorted: number[], p: number): number {
 }
 
 /** Runs `amount` requests over `connections` connections, paths drawn in turn from `paths`. */
-export async function measure(url: string, paths: string[], connections: number, amount: number): Promise<Timing> {
+export async function measure(url: string, paths: string[], connections: number, amount: number, headers: Record<string, string> = {}): Promise<Timing> {
   const times: number[] = []
   let next = 0
   const started = Date.now()
@@ -73,6 +73,7 @@ export async function measure(url: string, paths: string[], connections: number,
     url,
     connections,
     amount,
+    headers,
     requests: [{ setupRequest: request => ({ ...request, path: paths[next++ % paths.length]! }) }],
   }, (error, result) => (error ? failed(error) : finished(result)))
   instance.on('response', (_client, _status, _bytes, responseTime) => {

@@ -147,7 +147,10 @@ export async function progressGrid(db: Kysely<Database>, access: CampaignAccess)
   }
 }
 
-/** Queries progressGrid runs, stated with the grid: see its comment. */
+/**
+ * Queries progressGrid runs, stated with the grid: see its comment. The grid route adds five more, also
+ * fixed: the session's account, the campaign, the membership, the group and its site.
+ */
 export const GRID_QUERIES = 5
 
 const CELL_ORDER = { nothing: 0, logged: 1, measured: 2, sketched: 3, submitted: 4, published: 5 } as const
