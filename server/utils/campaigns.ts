@@ -2,7 +2,7 @@ import type { Kysely } from 'kysely'
 import type { Campaign, Database, Group, GroupSite, User } from '../../db/schema'
 import { predictedAtClockTime } from '#shared/observing/worksheet'
 import type { ObservingSite } from '#shared/observing/night'
-import { cellState, compareMembers, type MemberReadings, type ObservationFacts } from '#shared/campaigns/progress'
+import { cellState, compareMembers, type MemberReadings } from '#shared/campaigns/progress'
 import type { CampaignSummary, GridRow, ProgressGrid } from '#shared/campaigns/types'
 import type { GroupNeed } from './groups'
 
@@ -88,26 +88,26 @@ export function campaignObservations(db: Kysely<Database>, campaign: Campaign, m
 }
 
 /**
- * The progress grid in a fixed number of queries whatever the size of the class: members (1),
- * observations (1), measurement counts (1), sketch statuses (1), comment counts (1).
+ * The progress grid in a fixed number of queries whatever the size of the class: members (1), the
+ * covered observations with their measurement count and furthest sketch status (1), comment counts (1).
  */
 export async function progressGrid(db: Kysely<Database>, access: CampaignAccess): Promise<ProgressGrid> {
   const { campaign, group, site } = access
   const nights = campaignNights(campaign)
   const members = await activeMembers(db, group.id)
   const observations = await campaignObservations(db, campaign)
-    .select(['observations.id', 'observations.user_id', 'observations.local_date', 'observations.observed_at'])
+    .select(eb => [
+      'observations.id', 'observations.user_id', 'observations.local_date',
+      eb.selectFrom('measurements').select(m => m.fn.countAll<number>().as('n'))
+        .whereRef('measurements.observation_id', '=', 'observations.id').as('measured'),
+      // 3 published, 2 in review, 1 any other sketch: the furthest a sketch of this observation went.
+      eb.selectFrom('sketches').select(k => k.fn.max(k.case()
+        .when('sketches.status', '=', 'approved').then(3)
+        .when('sketches.status', '=', 'submitted').then(2)
+        .else(1).end()).as('s'))
+        .whereRef('sketches.observation_id', '=', 'observations.id').as('sketched'),
+    ])
     .orderBy('observations.observed_at')
-    .execute()
-  const covered = campaignObservations(db, campaign).select('observations.id')
-  const measured = await db.selectFrom('measurements')
-    .select(['observation_id', eb => eb.fn.countAll<number>().as('n')])
-    .where('observation_id', 'in', covered)
-    .groupBy('observation_id')
-    .execute()
-  const sketches = await db.selectFrom('sketches')
-    .select(['observation_id', 'status'])
-    .where('observation_id', 'in', covered)
     .execute()
   const comments = await db.selectFrom('campaign_comments')
     .select(['member_id', 'local_date', eb => eb.fn.countAll<number>().as('n')])
@@ -115,12 +115,8 @@ export async function progressGrid(db: Kysely<Database>, access: CampaignAccess)
     .groupBy(['member_id', 'local_date'])
     .execute()
 
-  const facts = new Map<string, ObservationFacts>(observations.map(o => [o.id, { measurements: 0, sketchStatuses: [] }]))
-  for (const m of measured) facts.get(m.observation_id)!.measurements = Number(m.n)
-  for (const s of sketches) facts.get(s.observation_id)?.sketchStatuses.push(s.status)
   const commentCount = new Map(comments.map(c => [`${c.member_id} ${c.local_date}`, Number(c.n)]))
   const nightIndex = new Map(nights.map((n, i) => [n, i]))
-
   const rowOf = new Map<string, GridRow>(members.map(m => [m.id, {
     member: { id: m.id, name: m.name },
     cells: nights.map(n => ({ state: 'nothing' as const, observationId: null, comments: commentCount.get(`${m.id} ${n}`) ?? 0 })),
@@ -130,7 +126,11 @@ export async function progressGrid(db: Kysely<Database>, access: CampaignAccess)
     const row = rowOf.get(o.user_id)
     const i = nightIndex.get(o.local_date)
     if (!row || i === undefined) continue
-    const state = cellState(facts.get(o.id))
+    const sketched = Number(o.sketched ?? 0)
+    const state = cellState({
+      measurements: Number(o.measured ?? 0),
+      sketchStatuses: sketched === 3 ? ['approved'] : sketched === 2 ? ['submitted'] : sketched === 1 ? ['draft'] : [],
+    })
     const cell = row.cells[i]!
     if (cell.observationId === null || CELL_ORDER[state] >= CELL_ORDER[cell.state]) {
       row.cells[i] = { ...cell, state, observationId: o.id }
@@ -151,7 +151,7 @@ export async function progressGrid(db: Kysely<Database>, access: CampaignAccess)
  * Queries progressGrid runs, stated with the grid: see its comment. The grid route adds five more, also
  * fixed: the session's account, the campaign, the membership, the group and its site.
  */
-export const GRID_QUERIES = 5
+export const GRID_QUERIES = 3
 
 const CELL_ORDER = { nothing: 0, logged: 1, measured: 2, sketched: 3, submitted: 4, published: 5 } as const
 

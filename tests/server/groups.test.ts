@@ -155,7 +155,7 @@ describe('group scope', () => {
     expect(row.total).toBe(1)
     expect(row.cells[2].state).toBe('measured')
     expect(row.cells[3].state).toBe('nothing')
-    expect(grid.body.queries).toBe(5)
+    expect(grid.body.queries).toBe(3)
     for (const path of ['grid', 'comparison', 'export', `members/${memberAId}`]) {
       const answer = await leaderA().get(`/api/campaigns/${campaignA}/${path}`)
       const text = typeof answer.body === 'string' ? answer.body : JSON.stringify(answer.body)

@@ -50,7 +50,7 @@ describe('proposed campaign nights', () => {
 
   it('the default clock time is the first evening\'s end of civil twilight, to the quarter hour', () => {
     // SunCalc's "dusk" is the end of evening civil twilight (Sun 6° below the horizon).
-    const dusk = SunCalc.getTimes(new Date('2026-11-12T12:00:00Z'), NORTH.latitude, NORTH.longitude).dusk
+    const dusk = SunCalc.getTimes(new Date('2026-11-12T12:00:00Z'), NORTH.latitude, NORTH.longitude).dusk!
     const expected = roundToQuarterHour(localDateTimeOf(dusk, NORTH.timeZone).time)
     expect(defaultClockTime('evening', '2026-11-12', NORTH)).toBe(expected)
     expect(roundToQuarterHour('17:07')).toBe('17:00')
