@@ -91,18 +91,20 @@ try {
   await measure(server.url, [`/api/campaigns/${campaignId}/grid`], CONNECTIONS, 300, headers)
   const trivial = await measure(server.url, ['/api/health'], CONNECTIONS, AMOUNT, headers)
   const gridTiming = await measure(server.url, [`/api/campaigns/${campaignId}/grid`], CONNECTIONS, AMOUNT, headers)
+  // For context: a small signed-in route (the session and one query), to show what signing in alone costs.
+  const signedIn = await measure(server.url, ['/api/groups'], CONNECTIONS, AMOUNT, headers)
   const results = {
     generatedAt: new Date().toISOString(),
     machine: machine(),
     data: { members: MEMBERS, nights: NIGHTS, observations, gridRows: body.rows.length, gridQueries: body.queries },
     load: { connections: CONNECTIONS, requestsPerRoute: AMOUNT, tool: 'autocannon', loadGenerator: 'separate process from the server' },
-    routes: { trivial, grid: gridTiming },
-    ratios: { gridP95VsTrivial: gridTiming.p95Ms / trivial.p95Ms, gridMedianVsTrivial: gridTiming.medianMs / trivial.medianMs },
+    routes: { trivial, grid: gridTiming, signedInList: signedIn },
+    ratios: { gridP95VsTrivial: gridTiming.p95Ms / trivial.p95Ms, gridMedianVsTrivial: gridTiming.medianMs / trivial.medianMs, gridP95VsSignedInList: gridTiming.p95Ms / signedIn.p95Ms },
     goal: 'gridP95VsTrivial ≤ 3',
   }
   mkdirSync(join(root, 'bench/results'), { recursive: true })
   writeFileSync(join(root, 'bench/results/campaign.json'), `${JSON.stringify(results, null, 2)}\n`)
-  console.table({ trivial, grid: gridTiming })
+  console.table({ trivial, grid: gridTiming, signedInList: signedIn })
   console.log(results.ratios)
 }
 finally {

@@ -51,6 +51,10 @@ export async function up(db: Kysely<any>): Promise<void> {
   // leader may see is exactly what was logged at the group's place.
   await db.schema.alterTable('sites').addColumn('group_site_id', 'text').execute()
   await db.schema.createIndex('sites_group_site_idx').on('sites').columns(['group_site_id', 'user_id']).execute()
+  // The progress grid reads a campaign's observations site by site and night by night, each with its
+  // sketches' statuses: covering indexes keep that to index reads.
+  await db.schema.createIndex('observations_site_date_idx').on('observations').columns(['site_id', 'local_date', 'user_id']).execute()
+  await db.schema.createIndex('sketches_observation_status_idx').on('sketches').columns(['observation_id', 'status']).execute()
 
   await db.schema
     .createTable('group_invitations')
@@ -123,6 +127,8 @@ export async function down(db: Kysely<any>): Promise<void> {
   await db.schema.dropTable('campaign_comments').execute()
   await db.schema.dropTable('campaigns').execute()
   await db.schema.dropTable('group_invitations').execute()
+  await db.schema.dropIndex('sketches_observation_status_idx').execute()
+  await db.schema.dropIndex('observations_site_date_idx').execute()
   await db.schema.dropIndex('sites_group_site_idx').execute()
   await db.schema.alterTable('sites').dropColumn('group_site_id').execute()
   await db.schema.dropTable('group_sites').execute()

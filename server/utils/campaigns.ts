@@ -76,14 +76,15 @@ function activeMembers(db: Kysely<Database>, groupId: string) {
  * one of its nights. Everything a leader sees of a member's work goes through this one filter.
  */
 export function campaignObservations(db: Kysely<Database>, campaign: Campaign, memberId?: string) {
-  return db.selectFrom('observations')
-    .innerJoin('sites', 'sites.id', 'observations.site_id')
-    .innerJoin('group_members', join => join
-      .onRef('group_members.user_id', '=', 'observations.user_id')
-      .on('group_members.group_id', '=', campaign.group_id)
-      .on('group_members.status', '=', 'active'))
+  // Driven from the members' copies of the site (a few dozen rows), then each copy's nights by index.
+  return db.selectFrom('sites')
+    .innerJoin('observations', 'observations.site_id', 'sites.id')
     .where('sites.group_site_id', '=', campaign.group_site_id)
+    .whereRef('observations.user_id', '=', 'sites.user_id')
     .where('observations.local_date', 'in', campaignNights(campaign))
+    .where('observations.user_id', 'in', eb => eb.selectFrom('group_members').select('group_members.user_id')
+      .where('group_members.group_id', '=', campaign.group_id)
+      .where('group_members.status', '=', 'active'))
     .$if(memberId !== undefined, q => q.where('observations.user_id', '=', memberId!))
 }
 

@@ -133,6 +133,9 @@ describe('a leader runs a campaign', () => {
     expect(await grid.getByRole('link', { name: 'Pip', exact: true }).count()).toBe(1)
     expect(await grid.getByRole('link', { name: 'Juno Marsh-Ellery', exact: true }).count()).toBe(1)
     await leader.screenshot({ path: artifact('campaign-grid.png'), fullPage: true })
+    await leader.setViewportSize({ width: 390, height: 844 })
+    await leader.screenshot({ path: artifact('campaign-grid-phone.png'), fullPage: true })
+    await leader.setViewportSize(TABLET.viewport)
 
     await leader.getByRole('tab', { name: 'Class comparison' }).tap()
     await leader.getByTestId('class-comparison').waitFor()
