@@ -36,12 +36,14 @@ const DECISION_WORDS = {
   withdraw: { subject: 'Your sketch was withdrawn from the atlas', lead: 'A moderator withdrew your sketch from the atlas.' },
 } as const
 
-export function decisionMail(name: string, decision: keyof typeof DECISION_WORDS, observedOn: string, comment: string, link: string) {
+/** `atlasLink` is the published atlas page, given for an approval. */
+export function decisionMail(name: string, decision: keyof typeof DECISION_WORDS, observedOn: string, comment: string, link: string, atlasLink?: string) {
   const words = DECISION_WORDS[decision]
   const said = comment.trim() ? `\n\nThe moderator wrote:\n\n${comment.trim()}` : ''
+  const published = atlasLink ? `\n\nSee it in the atlas: ${atlasLink}` : ''
   return {
     subject: words.subject,
-    text: `Hello ${name},\n\n${words.lead} (observation of ${observedOn})${said}\n\nSee your entries: ${link}${signature}`,
+    text: `Hello ${name},\n\n${words.lead} (observation of ${observedOn})${said}${published}\n\nSee your entries: ${link}${signature}`,
   }
 }
 

@@ -2,25 +2,12 @@ import { describe, expect, it } from 'vitest'
 import * as SunCalc from 'suncalc'
 import { addLocalDays, eveningWindowStart, morningWindowStart, observingWindows, rateWindow } from '../../shared/observing/windows'
 import { localDateTimeOf } from '../../shared/observing/clock'
+import { LUNATION_FROM, SITES, siteEntries } from '../support/observing-sites'
 
-// Four invented sites, one for each kind of sky the windows must hold for.
-export const SITES = {
-  'mid-north': { latitude: 52.634, longitude: -1.692, elevation: 95, timeZone: 'Europe/London' },
-  'mid-south': { latitude: -33.93, longitude: 18.47, elevation: 40, timeZone: 'Africa/Johannesburg' },
-  'near the equator': { latitude: -1.29, longitude: 36.82, elevation: 1700, timeZone: 'Africa/Nairobi' },
-  'high north in summer': { latitude: 64.14, longitude: -21.9, elevation: 20, timeZone: 'Atlantic/Reykjavik' },
-}
-// A whole lunation for each: the southern-winter lunation of June–July 2026 for the high-northern site (its
-// summer), the lunation around 2026-12-02 (a waning evening) for the others.
-const FROM: Record<keyof typeof SITES, string> = {
-  'mid-north': '2026-11-20',
-  'mid-south': '2026-11-20',
-  'near the equator': '2026-11-20',
-  'high north in summer': '2026-06-10',
-}
+const FROM = LUNATION_FROM
 
 describe('observing windows across a whole lunation at four sites', () => {
-  for (const [name, site] of Object.entries(SITES) as [keyof typeof SITES, (typeof SITES)[keyof typeof SITES]][]) {
+  for (const [name, site] of siteEntries()) {
     const windows = observingWindows(FROM[name], 30, site)
 
     it(`${name}: one window a date, in time order, starting at the chosen date`, () => {
