@@ -39,6 +39,9 @@ async function logFromCard(page: Page, clinometer: string, compass: string) {
   await page.waitForSelector('html[data-hydrated="true"]', { state: 'attached' })
   await page.getByLabel('Clinometer reading (°)').fill(clinometer)
   await page.getByLabel('Compass bearing (° magnetic)').fill(compass)
+  // A campaign night still to come is saved once the member confirms the date and time.
+  const plausibility = page.getByTestId('plausibility')
+  if (await plausibility.count()) await plausibility.getByRole('checkbox').tap()
   await page.getByRole('button', { name: 'Save observation' }).tap()
   await page.waitForURL(/\/observations\/[0-9a-f-]{36}$/)
 }
