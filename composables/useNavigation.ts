@@ -15,6 +15,7 @@ const ITEMS: NavItem[] = [
   { to: '/observations', label: 'Observations', role: 'learner' },
   { to: '/sketches', label: 'Sketches', role: 'observer' },
   { to: '/worksheet', label: 'Worksheet', role: 'learner' },
+  { to: '/groups', label: 'Groups', role: 'learner' },
   { to: '/photos', label: 'Photos', role: 'learner' },
   { to: '/sites', label: 'Sites', role: 'learner' },
   { to: '/entries', label: 'Entries', role: 'observer' },

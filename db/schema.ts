@@ -31,6 +31,8 @@ export interface SitesTable {
   longitude: number
   elevation_m: number
   time_zone: string
+  /** Set when this is the member's copy of a group site (2026-12-02-20). */
+  group_site_id: ColumnType<string | null, string | null | undefined, string | null>
   created_at: CreatedAt
   updated_at: Instant
 }
@@ -221,6 +223,9 @@ export interface AtlasEntriesTable {
   site_latitude: number
   site_longitude: number
   published_at: Instant
+  /** The listed group the entry was observed for (2026-12-02-20); the name is null while the group is private. */
+  group_id: ColumnType<string | null, string | null | undefined, string | null>
+  group_name: ColumnType<string | null, string | null | undefined, string | null>
 }
 
 export interface FeaturesTable {
@@ -303,6 +308,98 @@ export interface FeatureTagsTable {
   created_at: CreatedAt
 }
 
+export type GroupVisibility = 'private' | 'listed'
+export type GroupRole = 'leader' | 'co-leader' | 'member'
+export type MembershipStatus = 'active' | 'pending'
+
+export interface GroupsTable {
+  id: string
+  name: string
+  description: string
+  visibility: GroupVisibility
+  join_code: string | null
+  /** 1 when the leader approves each request made with the join code. */
+  join_approval: number
+  created_by: string
+  created_at: CreatedAt
+  updated_at: Instant
+}
+
+export interface GroupMembersTable {
+  id: string
+  group_id: string
+  user_id: string
+  role: GroupRole
+  status: MembershipStatus
+  /** 1 when the member asked for e-mail reminders on campaign evenings. */
+  reminders: number
+  created_at: CreatedAt
+  updated_at: Instant
+}
+
+export interface GroupSitesTable {
+  id: string
+  group_id: string
+  name: string
+  latitude: number
+  longitude: number
+  elevation_m: number
+  time_zone: string
+  created_at: CreatedAt
+  updated_at: Instant
+}
+
+export interface GroupInvitationsTable {
+  id: string
+  group_id: string
+  email: string
+  token_hash: string
+  invited_by: string
+  expires_at: Instant
+  used_at: Instant | null
+  used_by: string | null
+  revoked_at: Instant | null
+  created_at: CreatedAt
+}
+
+export type CampaignKind = 'evening' | 'morning'
+
+export interface CampaignsTable {
+  id: string
+  group_id: string
+  title: string
+  brief: string
+  kind: CampaignKind
+  group_site_id: string
+  /** HH:MM at the site. */
+  clock_time: string
+  /** JSON array of local dates. */
+  nights: string
+  asks_sketch: number
+  asks_altitude: number
+  asks_azimuth: number
+  reminder_minutes: number
+  created_by: string
+  created_at: CreatedAt
+  updated_at: Instant
+}
+
+export interface CampaignCommentsTable {
+  id: string
+  campaign_id: string
+  member_id: string
+  local_date: string
+  author_id: string
+  body: string
+  digest_at: Instant | null
+  created_at: CreatedAt
+}
+
+export interface CampaignMailLogTable {
+  key: string
+  sent_at: Instant
+}
+
 export interface Database {
   users: UsersTable
   sites: SitesTable
@@ -328,6 +425,13 @@ export interface Database {
   feature_tags: FeatureTagsTable
   formations: FormationsTable
   formation_pins: FormationPinsTable
+  groups: GroupsTable
+  group_members: GroupMembersTable
+  group_sites: GroupSitesTable
+  group_invitations: GroupInvitationsTable
+  campaigns: CampaignsTable
+  campaign_comments: CampaignCommentsTable
+  campaign_mail_log: CampaignMailLogTable
 }
 
 export type User = Selectable<UsersTable>
@@ -350,3 +454,7 @@ export type AtlasEntry = Selectable<AtlasEntriesTable>
 export type Feature = Selectable<FeaturesTable>
 export type FeatureTag = Selectable<FeatureTagsTable>
 export type FormationRow = Selectable<FormationsTable>
+export type Group = Selectable<GroupsTable>
+export type GroupMember = Selectable<GroupMembersTable>
+export type GroupSite = Selectable<GroupSitesTable>
+export type Campaign = Selectable<CampaignsTable>

@@ -6,6 +6,7 @@ import { zonedInstant } from '../shared/observing/clock'
 import { altitudeMeasurement, azimuthMeasurement } from '../shared/observing/measurements'
 import { COMPUTED_WITH, computeNight } from '../shared/observing/night'
 import type { Database } from './schema'
+import { seedDemoGroup, seedEarlierLunation } from './seedCampaign'
 
 // An invented scenario for the demo: the Brackenfield Moonwatchers, a school and
 // village club, its people and its observing places. None of it is real.
@@ -60,7 +61,10 @@ export async function seedDemo(
   const observer = ids.get('observer@shadowline.test')!
   const field = await db.selectFrom('sites').selectAll()
     .where('user_id', '=', observer).where('name', '=', DEMO_SITES[0]!.name).executeTakeFirstOrThrow()
-  const observations = await seedSeries(db, observer, field, now)
+  const start = seriesStart(now)
+  const observations = await seedSeries(db, observer, field, start, now)
+  const group = await seedDemoGroup(db, hashPassword, { leader: observer, learner: ids.get('learner@shadowline.test')!, leaderFieldSiteId: field.id }, start, now)
+  const earlier = await seedEarlierLunation(db, [ids.get('moderator@shadowline.test')!, ids.get('admin@shadowline.test')!], start)
   await db.insertInto('audit_log').values({
     id: randomUUID(),
     at,
@@ -68,7 +72,7 @@ export async function seedDemo(
     action: 'demo.seeded',
     subject_type: 'database',
     subject_id: null,
-    detail: JSON.stringify({ accounts: DEMO_ACCOUNTS.length, sites: DEMO_SITES.length, observations }),
+    detail: JSON.stringify({ accounts: DEMO_ACCOUNTS.length, sites: DEMO_SITES.length, observations, groupMembers: group.members, earlier }),
   }).execute()
   return true
 }
@@ -85,6 +89,14 @@ function random(seed: number): () => number {
 }
 
 const CLOCK_TIME = '18:30'
+
+/** The new moon of the latest lunation whose first quarter has passed. */
+function seriesStart(now: Date): Date {
+  const { previousNewMoon } = lunationBounds(now)
+  return now.getTime() - previousNewMoon.getTime() < 14 * 86_400_000
+    ? lunationBounds(new Date(previousNewMoon.getTime() - 86_400_000)).previousNewMoon
+    : previousNewMoon
+}
 const CLOUDY_NIGHTS = new Set([5, 9])
 /** The demo compass reads about 4° high: the worksheet should find that offset. */
 const COMPASS_BIAS_DEG = 4
@@ -97,12 +109,9 @@ async function seedSeries(
   db: Kysely<Database>,
   userId: string,
   site: { id: string, latitude: number, longitude: number, elevation_m: number, time_zone: string },
+  previousNewMoon: Date,
   now: Date,
 ): Promise<number> {
-  let { previousNewMoon } = lunationBounds(now)
-  if (now.getTime() - previousNewMoon.getTime() < 14 * 86_400_000) {
-    previousNewMoon = lunationBounds(new Date(previousNewMoon.getTime() - 86_400_000)).previousNewMoon
-  }
   const place = { latitude: site.latitude, longitude: site.longitude, elevation: site.elevation_m, timeZone: site.time_zone }
   const noise = random(20261202)
   let count = 0

@@ -76,9 +76,9 @@ export function summarize(times: number[], parts: Timing[]): Timing {
 
 /**
  * Runs `amount` requests over `connections` connections, paths drawn in turn from `paths`; `keep`, when
- * given, collects the response times too.
+ * given, collects the response times too; `headers` go with every request (a session cookie).
  */
-export async function measure(url: string, paths: string[], connections: number, amount: number, keep?: number[][]): Promise<Timing> {
+export async function measure(url: string, paths: string[], connections: number, amount: number, keep?: number[][], headers: Record<string, string> = {}): Promise<Timing> {
   const times: number[] = []
   let next = 0
   const started = Date.now()
@@ -92,6 +92,7 @@ export async function measure(url: string, paths: string[], connections: number,
     url,
     connections,
     amount,
+    headers,
     requests: [{ setupRequest: request => ({ ...request, path: paths[next++ % paths.length]! }) }],
   }, (error, result) => (error ? failed(error) : finished(result)))
   instance.on('response', (_client, _status, _bytes, responseTime) => {

@@ -6,9 +6,11 @@ import * as sketchSaveId from './2026-12-02-05-sketch-save-id'
 import * as review from './2026-12-02-06-review'
 import * as features from './2026-12-02-07-features'
 import * as sessionsOutboxRemovals from './2026-12-02-10-sessions-outbox-removals'
+import * as groups from './2026-12-02-20-groups'
 import * as formations from './2026-12-02-35-formations'
 import * as nameSearchKeys from './2026-12-02-36-name-search-keys'
 import * as atlasReadPath from './2026-12-02-40-atlas-read-path'
+import * as atlasGroupCards from './2026-12-02-41-atlas-group-cards'
 
 // Migrations are imported statically so they survive the server bundle.
 // Add each new migration here under its file name; names sort by date.
@@ -20,9 +22,11 @@ export const migrations: Record<string, Migration> = {
   '2026-12-02-06-review': review,
   '2026-12-02-07-features': features,
   '2026-12-02-10-sessions-outbox-removals': sessionsOutboxRemovals,
+  '2026-12-02-20-groups': groups,
   '2026-12-02-35-formations': formations,
   '2026-12-02-36-name-search-keys': nameSearchKeys,
   '2026-12-02-40-atlas-read-path': atlasReadPath,
+  '2026-12-02-41-atlas-group-cards': atlasGroupCards,
 }
 
 export const migrationProvider: MigrationProvider = {

@@ -7,7 +7,7 @@ import type { AtlasQuery } from '#shared/schemas/review'
 /** The columns a card shows; the covering indexes of the atlas hold each of them (see the migration). */
 export const CARD_COLUMNS = [
   'sketch_id', 'observer_id', 'observer_name', 'observed_at', 'age_days', 'phase_name', 'colongitude_deg',
-  'illuminated_fraction', 'instrument_kind', 'instrument_label', 'site_latitude', 'site_longitude', 'published_at',
+  'illuminated_fraction', 'instrument_kind', 'instrument_label', 'site_latitude', 'site_longitude', 'published_at', 'group_id', 'group_name',
 ] as const satisfies readonly (keyof AtlasEntry)[]
 
 export type AtlasCardRow = Pick<AtlasEntry, typeof CARD_COLUMNS[number]>
@@ -26,6 +26,7 @@ export function atlasCard(row: AtlasCardRow) {
     instrumentLabel: row.instrument_label,
     site: { latitude: row.site_latitude, longitude: row.site_longitude },
     publishedAt: row.published_at,
+    group: row.group_id && row.group_name ? { id: row.group_id, name: row.group_name } : null,
   }
 }
 
@@ -58,6 +59,8 @@ export function atlasQuery(db: Kysely<Database>, q: Omit<AtlasQuery, 'perPage'>)
       .select('formation_pins.sketch_id')
       .where('formation_pins.formation_id', '=', formation))
   }
+  // Only a listed group has a name in the atlas, so only a listed group can be filtered by.
+  if (q.group) query = query.where('group_id', '=', q.group).where('group_name', 'is not', null)
   if (q.instrument) query = query.where('instrument_kind', '=', q.instrument)
   if (q.from) query = query.where('observed_at', '>=', `${q.from}T00:00:00.000Z`)
   if (q.to) query = query.where('observed_at', '<=', `${q.to}T23:59:59.999Z`)

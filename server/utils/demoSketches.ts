@@ -1,6 +1,6 @@
 import sharp from 'sharp'
 import type { Kysely } from 'kysely'
-import type { Database } from '../../db/schema'
+import type { Database, Observation } from '../../db/schema'
 import { diskToSelenographic, selenographicToDisk, type DiskView } from '#shared/lunar'
 import { terminatorLongitude } from '#shared/observing/describe'
 import type { StoredCircumstances } from '#shared/observing/night'
@@ -78,63 +78,105 @@ export async function demoRaster(shapes: SketchShapes): Promise<Buffer> {
   return sharp(Buffer.from(svg)).png().toBuffer()
 }
 
+type DemoStatus = 'approved' | 'submitted' | 'returned'
+
+const RETURN_COMMENT = 'Lovely start. Please add the craters you saw along the terminator near the southern cusp.'
+
 /**
- * Sketches for the demo observer's series: most published, one waiting for review, one returned with a
- * comment, with the moderator's decisions recorded as a real review would record them.
+ * One demo sketch of an observation, saved like an editor save and taken through review to `status` as a
+ * real review would record it; returns where its craters are, for the pins.
+ */
+async function sketchObservation(db: Kysely<Database>, store: ObjectStore, observation: Observation, moderatorId: string, status: DemoStatus) {
+  const c = JSON.parse(observation.circumstances) as StoredCircumstances
+  const { shapes, places } = demoDrawing(c)
+  const id = newId()
+  const saveId = newId()
+  const keys = await ingestRaster(store, sketchObjectPrefix(id, saveId), await demoRaster(shapes), SKETCH_SIZE)
+  const at = observation.observed_at
+  const owner = observation.user_id
+  const sketch = {
+    id, observation_id: observation.id, user_id: owner, status, version: 2, schema_version: SHAPES_SCHEMA_VERSION,
+    shapes: JSON.stringify(shapes), view_orientation: VIEW.orientation, view_flip: VIEW.flip,
+    raster_key: keys.raster, thumb_small_key: keys.small, thumb_large_key: keys.large, submitted_at: at, created_at: at, updated_at: at,
+  } as const
+  await db.transaction().execute(async (trx) => {
+    await trx.insertInto('sketches').values(sketch).execute()
+    await trx.insertInto('sketch_revisions').values({
+      id: newId(), sketch_id: id, version: 2, schema_version: SHAPES_SCHEMA_VERSION, shapes: sketch.shapes,
+      view_orientation: VIEW.orientation, view_flip: VIEW.flip, raster_key: keys.raster, created_by: owner, created_at: at, save_id: saveId,
+    }).execute()
+    await trx.insertInto('sketch_reviews').values({ id: newId(), sketch_id: id, actor_id: owner, from_status: 'draft', to_status: 'submitted', comment: '', created_at: at }).execute()
+    if (status !== 'submitted') {
+      const comment = status === 'returned' ? RETURN_COMMENT : 'Clear terminator and careful shading.'
+      await trx.insertInto('sketch_reviews').values({ id: newId(), sketch_id: id, actor_id: moderatorId, from_status: 'submitted', to_status: status, comment, created_at: at }).execute()
+    }
+    if (status === 'approved') await publish(trx, { ...sketch, version: 2 }, at)
+  })
+  return { id, c, places, at }
+}
+
+/** Pins the sketch's craters, naming the features the first time they are seen. */
+async function pinPlaces(db: Kysely<Database>, features: Map<string, string>, ownerId: string, namerId: string, drawn: Awaited<ReturnType<typeof sketchObservation>>) {
+  for (const place of drawn.places) {
+    let featureId = features.get(place.name)
+    if (!featureId) {
+      featureId = await createFeature(db, { name: place.name, description: 'Named by the Brackenfield Moonwatchers (demo).', proposedBy: namerId })
+      if (place.confirmed) await db.updateTable('features').set({ status: 'confirmed' }).where('id', '=', featureId).execute()
+      features.set(place.name, featureId)
+    }
+    const disk = sketchToDisk(place)
+    const seleno = diskToSelenographic(disk.x, disk.y, drawn.c, VIEW)
+    if (!seleno) continue
+    const tagId = newId()
+    await db.insertInto('feature_tags').values({
+      id: tagId, sketch_id: drawn.id, feature_id: featureId, user_id: ownerId, disk_x: disk.x, disk_y: disk.y,
+      view_orientation: VIEW.orientation, view_flip: VIEW.flip, latitude: seleno.lat, longitude: seleno.lon, created_at: drawn.at,
+    }).execute()
+    await pinFormations(db, { id: tagId, sketch_id: drawn.id, latitude: seleno.lat, longitude: seleno.lon })
+  }
+}
+
+/**
+ * Sketches for the demo: the observer's series (most published, one waiting for review, one returned with
+ * a comment); the keener pupils' campaign evenings (published under the listed group's name, one each
+ * waiting); every evening of the earlier lunation's observers (one of them south of the equator).
  */
 export async function seedDemoSketches(db: Kysely<Database>, store: ObjectStore): Promise<number> {
   const observer = await db.selectFrom('users').selectAll().where('email', '=', 'observer@shadowline.test').executeTakeFirst()
   const moderator = await db.selectFrom('users').selectAll().where('email', '=', 'moderator@shadowline.test').executeTakeFirst()
   if (!observer || !moderator) return 0
-  const observations = await db.selectFrom('observations').selectAll().where('user_id', '=', observer.id).orderBy('observed_at').execute()
   const features = new Map<string, string>()
   let made = 0
+  const observations = await db.selectFrom('observations').selectAll().where('user_id', '=', observer.id).orderBy('observed_at').execute()
   for (const [index, observation] of observations.entries()) {
     if (index % 2 === 1 && index !== observations.length - 1) continue
-    const c = JSON.parse(observation.circumstances) as StoredCircumstances
-    const { shapes, places } = demoDrawing(c)
-    const id = newId()
-    const saveId = newId()
-    const keys = await ingestRaster(store, sketchObjectPrefix(id, saveId), await demoRaster(shapes), SKETCH_SIZE)
-    const at = observation.observed_at
     const status = index === observations.length - 1 ? 'submitted' : index === 2 ? 'returned' : 'approved'
-    const sketch = {
-      id, observation_id: observation.id, user_id: observer.id, status, version: 2, schema_version: SHAPES_SCHEMA_VERSION,
-      shapes: JSON.stringify(shapes), view_orientation: VIEW.orientation, view_flip: VIEW.flip,
-      raster_key: keys.raster, thumb_small_key: keys.small, thumb_large_key: keys.large, submitted_at: at, created_at: at, updated_at: at,
-    } as const
-    await db.transaction().execute(async (trx) => {
-      await trx.insertInto('sketches').values(sketch).execute()
-      await trx.insertInto('sketch_revisions').values({
-        id: newId(), sketch_id: id, version: 2, schema_version: SHAPES_SCHEMA_VERSION, shapes: sketch.shapes,
-        view_orientation: VIEW.orientation, view_flip: VIEW.flip, raster_key: keys.raster, created_by: observer.id, created_at: at, save_id: saveId,
-      }).execute()
-      await trx.insertInto('sketch_reviews').values({ id: newId(), sketch_id: id, actor_id: observer.id, from_status: 'draft', to_status: 'submitted', comment: '', created_at: at }).execute()
-      if (status !== 'submitted') {
-        const comment = status === 'returned' ? 'Lovely start. Please add the craters you saw along the terminator near the southern cusp.' : 'Clear terminator and careful shading.'
-        await trx.insertInto('sketch_reviews').values({ id: newId(), sketch_id: id, actor_id: moderator.id, from_status: 'submitted', to_status: status, comment, created_at: at }).execute()
-      }
-      if (status === 'approved') await publish(trx, { ...sketch, version: 2 }, at)
-    })
-    for (const place of places) {
-      let featureId = features.get(place.name)
-      if (!featureId) {
-        featureId = await createFeature(db, { name: place.name, description: 'Named by the Brackenfield Moonwatchers (demo).', proposedBy: observer.id })
-        if (place.confirmed) await db.updateTable('features').set({ status: 'confirmed' }).where('id', '=', featureId).execute()
-        features.set(place.name, featureId)
-      }
-      const disk = sketchToDisk(place)
-      const seleno = diskToSelenographic(disk.x, disk.y, c, VIEW)
-      if (!seleno) continue
-      const tagId = newId()
-      await db.insertInto('feature_tags').values({
-        id: tagId, sketch_id: id, feature_id: featureId, user_id: observer.id, disk_x: disk.x, disk_y: disk.y,
-        view_orientation: VIEW.orientation, view_flip: VIEW.flip, latitude: seleno.lat, longitude: seleno.lon, created_at: at,
-      }).execute()
-      await pinFormations(db, { id: tagId, sketch_id: id, latitude: seleno.lat, longitude: seleno.lon })
-    }
+    await pinPlaces(db, features, observer.id, observer.id, await sketchObservation(db, store, observation, moderator.id, status))
     made += 1
   }
-  for (const featureId of features.values()) await recomputePosition(db, featureId)
+
+  const others = await db.selectFrom('observations')
+    .innerJoin('users', 'users.id', 'observations.user_id')
+    .selectAll('observations')
+    .select('users.email')
+    .where('users.email', 'in', ['ottilie@shadowline.test', 'kofi@shadowline.test', 'wren@shadowline.test', 'admin@shadowline.test'])
+    .orderBy('observations.observed_at')
+    .execute()
+  const byUser = new Map<string, typeof others>()
+  for (const o of others) byUser.set(o.user_id, [...(byUser.get(o.user_id) ?? []), o])
+  for (const rows of byUser.values()) {
+    for (const [index, observation] of rows.entries()) {
+      if (index % 3 !== 0 && index !== rows.length - 1) continue
+      // Sketches by the admin are reviewed by the moderator; the moderator's own are left unsketched.
+      const status = index === rows.length - 1 && observation.email !== 'admin@shadowline.test' ? 'submitted' : 'approved'
+      await pinPlaces(db, features, observation.user_id, observer.id, await sketchObservation(db, store, observation, moderator.id, status))
+      made += 1
+    }
+  }
+  // The pins came after publication, so the atlas's per-feature listing is filled from them here.
+  for (const featureId of features.values()) {
+    await recomputePosition(db, featureId)
+    await refreshFeatureEntries(db, { featureId })
+  }
   return made
 }

@@ -53,3 +53,10 @@ export function decisionMail(name: string, decision: keyof typeof DECISION_WORDS
     text: `Hello ${name},\n\n${words.lead} (observation of ${observedOn})${said}${published}\n\nSee your entries: ${link}${signature}`,
   }
 }
+
+export function invitationMail(groupName: string, leaderName: string, link: string) {
+  return {
+    subject: `You are invited to join ${groupName} on Shadowline`,
+    text: `Hello,\n\n${leaderName} invites you to join the group “${groupName}” on Shadowline, to observe and sketch the Moon together.\n\nJoin here (you can make an account from the same link):\n\n${link}\n\nThe link works once and expires in 14 days. If you do not know the group, ignore this message.${signature}`,
+  }
+}

@@ -41,10 +41,11 @@ export async function publish(trx: Transaction<Database>, sketch: Sketch, at: st
       'observations.observed_at', 'observations.age_days', 'observations.phase_name', 'observations.colongitude_deg',
       'observations.illuminated_fraction', 'observations.instrument_kind', 'observations.magnification',
       'observations.aperture_mm', 'observations.focal_length_mm', 'observations.eyepiece_mm',
-      'sites.latitude', 'sites.longitude', 'users.name',
+      'sites.latitude', 'sites.longitude', 'users.name', 'observations.site_id',
     ])
     .where('observations.id', '=', sketch.observation_id)
     .executeTakeFirstOrThrow()
+  const group = await listedGroupOf(trx, row.site_id, sketch.user_id)
   await trx.insertInto('atlas_entries').values({
     sketch_id: sketch.id,
     observer_id: sketch.user_id,
@@ -65,6 +66,8 @@ export async function publish(trx: Transaction<Database>, sketch: Sketch, at: st
     site_latitude: roundedCoordinate(row.latitude),
     site_longitude: roundedCoordinate(row.longitude),
     published_at: at,
+    group_id: group?.groupId ?? null,
+    group_name: group?.groupName ?? null,
   }).execute()
   await refreshFeatureEntries(trx, { entryId: sketch.id })
 }

@@ -11,7 +11,7 @@ export function observingSite(site: Site): ObservingSite {
   return { latitude: site.latitude, longitude: site.longitude, elevation: site.elevation_m, timeZone: site.time_zone }
 }
 
-export function siteDto(site: Site) {
+export function siteDto(site: Omit<Site, 'group_site_id'> & { group_site_id?: string | null }) {
   return {
     id: site.id,
     name: site.name,
@@ -19,6 +19,8 @@ export function siteDto(site: Site) {
     longitude: site.longitude,
     elevation: site.elevation_m,
     timeZone: site.time_zone,
+    /** A copy of a group's site: the group's leaders see what is logged there for their campaigns. */
+    groupSite: site.group_site_id != null,
   }
 }
 

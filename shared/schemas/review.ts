@@ -38,6 +38,8 @@ export const AtlasQuery = z.object({
   /** A reference formation's slug: every entry with a pin inside its outline. */
   formation: z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'Unknown formation.').max(80, 'Unknown formation.').optional(),
   observer: z.uuid().optional(),
+  /** A listed group's id: its members' entries. */
+  group: z.uuid().optional(),
   instrument: InstrumentKind.optional(),
   from: LocalDate.optional(),
   to: LocalDate.optional(),

@@ -151,6 +151,13 @@ describe('the atlas', () => {
     const approvedIds = new Set<string>()
     for (const e of (await observer.get('/api/entries')).body) if (e.status === 'approved') approvedIds.add(e.id)
     for (const e of (await moderator.get('/api/entries')).body) if (e.status === 'approved') approvedIds.add(e.id)
+    // The demo's other authors: the admin (south of the equator) and the club's keener pupils.
+    const authors = [DEMO.admin, ...['ottilie', 'kofi', 'wren'].map(n => ({ email: `${n}@shadowline.test`, password: 'moonlit-member' }))]
+    for (const author of authors) {
+      const client = new Client(app.url)
+      await client.signIn(author.email, author.password)
+      for (const e of (await client.get('/api/entries')).body) if (e.status === 'approved') approvedIds.add(e.id)
+    }
     expect(new Set(atlas.body.items.map((i: any) => i.id))).toEqual(approvedIds)
 
     const text = JSON.stringify(atlas.body)
