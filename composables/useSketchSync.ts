@@ -1,10 +1,27 @@
 import { FetchError } from 'ofetch'
 import { get as readLocal, set as writeLocal } from 'idb-keyval'
-import type { DiskView } from '#shared/lunar'
+import { lunarCircumstances } from '#shared/lunar'
+import type { DiskGeometry, DiskView } from '#shared/lunar'
 import type { SketchConflict, SketchDetail, SketchSaved } from '#shared/sketch/api'
 import { DISK_RADIUS, SKETCH_SIZE } from '#shared/sketch/frame'
+import { stepsBetween } from '#shared/sketch/operations'
+import type { DrawingState, SketchStep } from '#shared/sketch/operations'
 import { SHAPES_SCHEMA_VERSION } from '#shared/sketch/schema'
 import type { Stroke } from '#shared/sketch/schema'
+
+/**
+ * A save as sent. Kept on the device until answered: after a reload or a lost answer it is sent again exactly
+ * as it was, with the same id, so it lands once; later edits follow in a save of their own.
+ */
+interface PendingSave {
+  saveId: string
+  baseVersion: number
+  atEdit: number
+  method: 'PATCH' | 'PUT'
+  body: { baseVersion: number, saveId: string, steps: SketchStep[] } | { baseVersion: number, saveId: string, orientation: DiskView['orientation'], flip: DiskView['flip'], shapes: object }
+  /** The drawing the server holds once this save lands. */
+  result: DrawingState
+}
 
 /** What the device keeps of an open sketch in IndexedDB, written as it changes. */
 interface LocalCopy {
@@ -16,8 +33,10 @@ interface LocalCopy {
   baseVersion: number
   edits: number
   savedEdit: number
+  /** The drawing the server holds at `baseVersion` (absent in copies written before saves were operations). */
+  confirmed?: DrawingState | null
   /** A save that was sent but not confirmed: retried with the same id, it lands at most once. */
-  pending: { saveId: string, atEdit: number, baseVersion: number } | null
+  pending: PendingSave | null
   writtenAt: string
 }
 
@@ -26,6 +45,13 @@ const AUTOSAVE_EVERY_MS = 5000
 const QUIET_MS = 1500
 
 const localKey = (id: string) => `shadowline.sketch.${id}`
+
+function whenIdle(): Promise<void> {
+  return new Promise((resolve) => {
+    if (typeof requestIdleCallback === 'function') requestIdleCallback(() => resolve(), { timeout: 500 })
+    else setTimeout(resolve, 0)
+  })
+}
 
 function randomUuid(): string {
   if (typeof crypto.randomUUID === 'function') return crypto.randomUUID()
@@ -37,14 +63,19 @@ function randomUuid(): string {
 }
 
 /**
- * Never lose a stroke: every change is written to IndexedDB at once, a reopened page takes the local copy
- * when it holds edits the server has not confirmed, and saves go to the server on request and every few
- * seconds while online. A refused save that raced another tab turns into a choice for the observer.
+ * Never lose a stroke: every change is written to IndexedDB as soon as the page is idle, a reopened page
+ * takes the local copy when it holds edits the server has not confirmed, and saves go to the server on
+ * request and every few seconds while online. A save sends only what changed since the drawing the server
+ * confirmed (PATCH); the whole drawing goes (PUT) when this device no longer knows that drawing, or the
+ * server refused the changes. A refused save that raced another tab turns into a choice for the observer.
  */
 export function useSketchSync(id: string) {
   const store = useSketchStore()
   const online = ref(true)
   let pending: LocalCopy['pending'] = null
+  /** Set when the server refused a list of changes: the next save sends the whole drawing. */
+  let sendWhole = false
+  let geometry: { at: string, value: DiskGeometry } | null = null
   let lastEditAt = 0
   let lastAttemptAt = 0
   let tickTimer: ReturnType<typeof setInterval> | undefined
@@ -61,13 +92,17 @@ export function useSketchSync(id: string) {
   let writing: Promise<void> | null = null
   let writeAgain = false
 
-  /** Writes at once; changes made while a write is running are written right after it, in one go. */
+  /**
+   * Writes when the page is next idle (within half a second), never inside the pointer event that ended a
+   * stroke: copying the drawing for IndexedDB grows with it. Changes made while a write is running are
+   * written right after it, in one go.
+   */
   function persistSoon() {
     if (writing) {
       writeAgain = true
       return
     }
-    writing = persist().finally(() => {
+    writing = whenIdle().then(persist).finally(() => {
       writing = null
       if (writeAgain) {
         writeAgain = false
@@ -82,7 +117,7 @@ export function useSketchSync(id: string) {
     const unconfirmed = local && local.edits !== local.savedEdit
     if (!server) {
       if (!local) return false
-      store.open({ ...local.detail, shapes: { schemaVersion: SHAPES_SCHEMA_VERSION, frame: { size: SKETCH_SIZE, diskRadius: DISK_RADIUS }, strokes: [] } }, local)
+      store.open({ ...local.detail, shapes: { schemaVersion: SHAPES_SCHEMA_VERSION, frame: { size: SKETCH_SIZE, diskRadius: DISK_RADIUS }, strokes: [] } }, local, false)
       pending = local.pending
       store.sync = 'offline'
       return true
@@ -101,32 +136,51 @@ export function useSketchSync(id: string) {
     return true
   }
 
-  function shapesJson(strokes: readonly Stroke[]): string {
-    return JSON.stringify({ schemaVersion: SHAPES_SCHEMA_VERSION, frame: { size: SKETCH_SIZE, diskRadius: DISK_RADIUS }, strokes })
+  function sketchGeometry(): DiskGeometry | null {
+    const observation = store.detail?.observation
+    if (!observation) return null
+    if (geometry?.at !== observation.observedAt) {
+      geometry = { at: observation.observedAt, value: lunarCircumstances(new Date(observation.observedAt), observation.site) }
+    }
+    return geometry.value
+  }
+
+  /** The next save: the changes since the confirmed drawing, or the whole drawing; null when nothing changed. */
+  function nextSave(): PendingSave | null {
+    const atEdit = store.edits
+    const baseVersion = store.baseVersion
+    const target: DrawingState = { strokes: store.strokes, view: { ...store.view } }
+    const saveId = randomUuid()
+    const geometry = sketchGeometry()
+    const steps = store.confirmed && geometry && !sendWhole ? stepsBetween(store.confirmed, target, geometry) : null
+    if (steps?.length === 0) {
+      // Undone back to what the server holds.
+      store.markSaved(baseVersion, atEdit, target)
+      return null
+    }
+    if (steps) return { saveId, baseVersion, atEdit, method: 'PATCH', body: { baseVersion, saveId, steps }, result: target }
+    const shapes = { schemaVersion: SHAPES_SCHEMA_VERSION, frame: { size: SKETCH_SIZE, diskRadius: DISK_RADIUS }, strokes: target.strokes }
+    return { saveId, baseVersion, atEdit, method: 'PUT', body: { baseVersion, saveId, ...target.view, shapes }, result: target }
   }
 
   async function send() {
-    const atEdit = store.edits
-    const strokes = store.strokes
-    const view = { ...store.view }
-    const baseVersion = store.baseVersion
-    if (!pending || pending.atEdit !== atEdit || pending.baseVersion !== baseVersion) {
-      pending = { saveId: randomUuid(), atEdit, baseVersion }
+    // A save sent on another base (before a conflict was settled) can no longer land.
+    if (pending && pending.baseVersion !== store.baseVersion) pending = null
+    pending ??= nextSave()
+    const sent = pending
+    if (!sent) {
+      store.sync = 'saved'
+      await persist()
+      return
     }
     await persist()
     store.sync = 'saving'
     lastAttemptAt = Date.now()
     try {
-      const form = new FormData()
-      form.set('baseVersion', String(baseVersion))
-      form.set('saveId', pending.saveId)
-      form.set('orientation', view.orientation)
-      form.set('flip', view.flip)
-      form.set('shapes', shapesJson(strokes))
-      form.set('raster', await renderSketchRaster(strokes), 'sketch.png')
-      const saved = await $fetch<SketchSaved>(`/api/sketches/${id}`, { method: 'PUT', body: form })
+      const saved = await $fetch<SketchSaved>(`/api/sketches/${id}`, { method: sent.method, body: sent.body })
       pending = null
-      store.markSaved(saved.version, atEdit)
+      sendWhole = false
+      store.markSaved(saved.version, sent.atEdit, sent.result)
       store.sync = store.dirty ? 'pending' : 'saved'
       store.syncMessage = ''
     }
@@ -139,6 +193,11 @@ export function useSketchSync(id: string) {
         store.sync = 'offline'
       }
       else {
+        if (error instanceof FetchError && error.statusCode && error.statusCode < 500) {
+          // Refused as it stands: it will never land, so the next save sends the whole drawing afresh.
+          pending = null
+          sendWhole = true
+        }
         store.sync = 'error'
         store.syncMessage = apiErrorMessage(error)
       }
@@ -179,7 +238,8 @@ export function useSketchSync(id: string) {
   /** Conflict: save this copy on top of the other one, which stays in the revision history. */
   async function keepLocalCopy() {
     if (store.conflictVersion == null) return
-    store.baseVersion = store.conflictVersion
+    store.rebase(store.conflictVersion)
+    pending = null
     store.conflictVersion = null
     store.sync = 'pending'
     await save()

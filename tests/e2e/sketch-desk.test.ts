@@ -244,6 +244,17 @@ describe('never losing a stroke', () => {
   it('keeps strokes drawn offline, still has them after an offline reload, and saves them once back online', async () => {
     const context = await signedIn()
     const id = await newSketch(context)
+    // Every save that the server took, with what it carried: each stroke must arrive in exactly one.
+    const landed: { method: string, added: string[], bytes: number }[] = []
+    context.on('response', (response) => {
+      const request = response.request()
+      if (!request.url().endsWith(`/api/sketches/${id}`) || !['PATCH', 'PUT'].includes(request.method()) || response.status() !== 200) return
+      const body = request.postDataJSON()
+      const added = request.method() === 'PATCH'
+        ? body.steps.filter((s: any) => s.op === 'add').map((s: any) => s.stroke.id)
+        : body.shapes.strokes.map((s: any) => s.id)
+      landed.push({ method: request.method(), added, bytes: request.postDataBuffer()?.length ?? 0 })
+    })
     const unvisitedId = await newSketch(context)
     let page = await openDesk(context, id)
     await drawWithMouse(page, wave(900))
@@ -271,12 +282,13 @@ describe('never losing a stroke', () => {
     expect(await syncState(page)).toBe('offline')
     expect((await serverCopy(context, id)).shapes.strokes).toHaveLength(1)
 
-    // Back online, the autosave sends them.
+    // Back online, the autosave sends them: the two new strokes only, as operations on version 2.
     await context.setOffline(false)
     await expect.poll(() => syncState(page), { timeout: 20_000 }).toBe('saved')
     let saved = await serverCopy(context, id)
     expect(saved.version).toBe(3)
     expect(saved.shapes.strokes).toHaveLength(3)
+    expect(landed.map(l => [l.method, l.added.length])).toEqual([['PATCH', 1], ['PATCH', 2]])
 
     // A tab that goes away (a crash, a flat battery) before it could save loses nothing either.
     await drawWithMouse(page, wave(1350))
@@ -289,6 +301,11 @@ describe('never losing a stroke', () => {
     await expect.poll(() => syncState(page), { timeout: 20_000 }).toBe('saved')
     saved = await serverCopy(context, id)
     expect(saved.shapes.strokes).toHaveLength(4)
+    // Every stroke reached the server once: one landed save carried each, and the drawing holds each once.
+    const serverIds = saved.shapes.strokes.map((s: any) => s.id)
+    expect(new Set(serverIds).size).toBe(4)
+    expect(landed.flatMap(l => l.added).sort()).toEqual([...serverIds].sort())
+    expect(landed.every(l => l.method === 'PATCH')).toBe(true)
     await context.close()
   })
 
@@ -315,8 +332,9 @@ describe('never losing a stroke', () => {
     await dialog.getByRole('button', { name: 'Keep mine as a new version' }).click()
     await expect.poll(() => syncState(second), { timeout: 20_000 }).toBe('saved')
     expect((await serverCopy(context, id)).shapes.strokes).toHaveLength(2)
+    // The copy kept after the conflict went whole, so it is a checkpoint; version 2 is stored as its operations.
     const revisions = await (await context.request.get(`${app.url}/api/sketches/${id}/revisions`)).json()
-    expect(revisions.map((r: any) => r.version)).toEqual([3, 2, 1])
+    expect(revisions.checkpoints.map((r: any) => [r.version, r.reason])).toEqual([[3, 'full'], [1, 'created']])
 
     // The first tab now lags behind: it takes the saved version instead.
     await first.bringToFront()
