@@ -46,6 +46,11 @@ const QUIET_MS = 1500
 
 const localKey = (id: string) => `shadowline.sketch.${id}`
 
+/** A save kept by an editor from before saves were operations carries no request: it is built afresh. */
+function replayable(saved: PendingSave | null | undefined): PendingSave | null {
+  return saved?.method && saved.body ? saved : null
+}
+
 function whenIdle(): Promise<void> {
   return new Promise((resolve) => {
     if (typeof requestIdleCallback === 'function') requestIdleCallback(() => resolve(), { timeout: 500 })
@@ -53,7 +58,8 @@ function whenIdle(): Promise<void> {
   })
 }
 
-function randomUuid(): string {
+/** A v4 UUID, also where crypto.randomUUID is missing (pages served over plain http on a club network). */
+export function randomUuid(): string {
   if (typeof crypto.randomUUID === 'function') return crypto.randomUUID()
   const b = crypto.getRandomValues(new Uint8Array(16))
   b[6] = (b[6]! & 0x0F) | 0x40
@@ -118,13 +124,13 @@ export function useSketchSync(id: string) {
     if (!server) {
       if (!local) return false
       store.open({ ...local.detail, shapes: { schemaVersion: SHAPES_SCHEMA_VERSION, frame: { size: SKETCH_SIZE, diskRadius: DISK_RADIUS }, strokes: [] } }, local, false)
-      pending = local.pending
+      pending = replayable(local.pending)
       store.sync = 'offline'
       return true
     }
     if (server.editable && local && unconfirmed) {
       store.open(server, local)
-      pending = local.pending
+      pending = replayable(local.pending)
       // The server decides: the save lands, or a 409 shows that another copy moved on.
       store.sync = 'pending'
     }

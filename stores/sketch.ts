@@ -31,7 +31,7 @@ export interface LocalSketchState {
   edits: number
   savedEdit: number
   /** The drawing as the server holds it at `baseVersion`; null when this device no longer knows it. */
-  confirmed: DrawingState | null
+  confirmed?: DrawingState | null
 }
 
 /**
