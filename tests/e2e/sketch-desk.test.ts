@@ -345,3 +345,39 @@ describe('never losing a stroke', () => {
     await context.close()
   })
 })
+
+describe('history', () => {
+  it('lists the versions kept whole with their images, and brings one back as the newest version', async () => {
+    const context = await signedIn()
+    const id = await newSketch(context)
+    const desk = await openDesk(context, id)
+    await drawWithMouse(desk, wave(800))
+    await desk.getByRole('button', { name: 'Save now' }).click()
+    await expect.poll(() => syncState(desk), { timeout: 20_000 }).toBe('saved')
+    // A whole save, as "keep mine" after a conflict makes: version 3 is kept whole, with two strokes.
+    const copy = await serverCopy(context, id)
+    const strokes = [...copy.shapes.strokes, { id: 'kept1', tool: 'shade', tone: 0.3, size: 160, points: wave(1200).flatMap(([x, y]) => [x, y, 0.5]) }]
+    const whole = await context.request.put(`${app.url}/api/sketches/${id}`, { data: { baseVersion: 2, saveId: crypto.randomUUID(), ...copy.view, shapes: { ...copy.shapes, strokes } } })
+    expect(whole.status()).toBe(200)
+    await desk.close()
+
+    const page = await context.newPage()
+    await openReady(page, `${app.url}/sketches/${id}/revisions`)
+    const items = page.getByTestId('sketch-revisions').getByRole('listitem')
+    await expect.poll(() => items.count()).toBe(2)
+    await expect.poll(() => items.first().textContent()).toMatch(/Version 3 · current.*Saved whole.*2 strokes/s)
+    // Every image has loaded, drawn by the server from that version.
+    await expect.poll(() => page.evaluate(() => [...document.querySelectorAll<HTMLImageElement>('[data-testid="sketch-revisions"] img')].every(i => i.complete && i.naturalWidth === 256))).toBe(true)
+    await page.screenshot({ path: artifact('sketch-revisions.png'), fullPage: true })
+
+    await items.nth(1).getByRole('button', { name: 'Bring back' }).click()
+    await page.getByText('Brought back as version 4.').waitFor()
+    await expect.poll(() => items.first().textContent()).toMatch(/Version 4 · current.*Brought back.*0 strokes/s)
+    expect((await serverCopy(context, id)).shapes.strokes).toEqual([])
+
+    await page.setViewportSize({ width: 390, height: 844 })
+    await page.getByRole('button', { name: /^Night/ }).first().click()
+    await page.screenshot({ path: artifact('sketch-revisions-phone-night.png'), fullPage: true })
+    await context.close()
+  })
+})
