@@ -305,6 +305,22 @@ describe('a sketch from start to revisions', () => {
   })
 })
 
+describe('submitting a sketch saved only as operations', () => {
+  it('offers it for submission, keeps the submitted version whole, and draws its image for the review queue', async () => {
+    const id = (await observer.call('POST', '/api/sketches', { observationId })).body.id
+    expect((await observer.patch(id, 1, uuid(50), [add(pencil('s1', 800))])).status).toBe(200)
+    expect(storedKeys(`sketches/${id}`)).toEqual([])
+    const entries = await observer.call('GET', '/api/entries')
+    expect(entries.body.find((e: any) => e.id === id)).toMatchObject({ hasRaster: true })
+    const submitted = await observer.call('POST', `/api/entries/${id}/submit`, { comment: '' })
+    expect(submitted.status).toBe(200)
+    expect(storedKeys(`sketches/${id}`).sort()).toEqual([`sketches/${id}/v2/full.webp`, `sketches/${id}/v2/thumb-256.webp`, `sketches/${id}/v2/thumb-512.webp`])
+    const list = (await observer.call('GET', `/api/sketches/${id}/revisions`)).body
+    expect(list.checkpoints.map((r: any) => [r.version, r.reason, r.strokes])).toEqual([[2, 'submitted', 1], [1, 'created', 0]])
+    expect(list.editable).toBe(false)
+  })
+})
+
 describe('bad saves are refused and change nothing', () => {
   let id: string
   beforeAll(async () => {
@@ -341,7 +357,19 @@ describe('bad saves are refused and change nothing', () => {
     const raw = (body: string, type: string) => fetch(`${app.url}/api/sketches/${id}`, { method: 'PATCH', headers: { 'cookie': observer.cookie, 'content-type': type }, body })
     expect((await raw('steps', 'text/plain')).status).toBe(415)
     expect((await raw('{"baseVersion": 2,', 'application/json')).status).toBe(400)
-    const huge = await observer.patch(id, 2, uuid(37), [add({ ...pencil('k4', 800), points: Array.from({ length: 13_000_000 }, () => 1) })])
+    // Sent in chunks with no declared length, so the server must count as it reads (and the answer is not
+    // lost to a connection closed while a declared-too-large body is still being sent).
+    const chunk = new TextEncoder().encode('1,'.repeat(512 * 1024))
+    let sent = 0
+    const body = new ReadableStream<Uint8Array>({
+      pull(controller) {
+        if (sent === 0) controller.enqueue(new TextEncoder().encode(`{"baseVersion":2,"saveId":"${uuid(37)}","steps":[{"op":"add","stroke":{"id":"k4","tool":"pencil","tone":1,"size":5,"pen":true,"points":[`))
+        if (sent > 26 * 1024 * 1024) controller.close()
+        else controller.enqueue(chunk)
+        sent += chunk.length
+      },
+    })
+    const huge = await fetch(`${app.url}/api/sketches/${id}`, { method: 'PATCH', headers: { 'cookie': observer.cookie, 'content-type': 'application/json' }, body, duplex: 'half' } as RequestInit)
     expect(huge.status).toBe(413)
     await unchanged()
   })
