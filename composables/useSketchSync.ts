@@ -1,50 +1,16 @@
 import { FetchError } from 'ofetch'
-import { get as readLocal, set as writeLocal } from 'idb-keyval'
 import { lunarCircumstances } from '#shared/lunar'
-import type { DiskGeometry, DiskView } from '#shared/lunar'
+import type { DiskGeometry } from '#shared/lunar'
 import type { SketchConflict, SketchDetail, SketchSaved } from '#shared/sketch/api'
 import { DISK_RADIUS, SKETCH_SIZE } from '#shared/sketch/frame'
 import { stepsBetween } from '#shared/sketch/operations'
-import type { DrawingState, SketchStep } from '#shared/sketch/operations'
+import type { DrawingState } from '#shared/sketch/operations'
 import { SHAPES_SCHEMA_VERSION } from '#shared/sketch/schema'
-import type { Stroke } from '#shared/sketch/schema'
-
-/**
- * A save as sent. Kept on the device until answered: after a reload or a lost answer it is sent again exactly
- * as it was, with the same id, so it lands once; later edits follow in a save of their own.
- */
-interface PendingSave {
-  saveId: string
-  baseVersion: number
-  atEdit: number
-  method: 'PATCH' | 'PUT'
-  body: { baseVersion: number, saveId: string, steps: SketchStep[] } | { baseVersion: number, saveId: string, orientation: DiskView['orientation'], flip: DiskView['flip'], shapes: object }
-  /** The drawing the server holds once this save lands. */
-  result: DrawingState
-}
-
-/** What the device keeps of an open sketch in IndexedDB, written as it changes. */
-interface LocalCopy {
-  id: string
-  /** The server's answer when last loaded (without its strokes), so the page can open with no network. */
-  detail: Omit<SketchDetail, 'shapes'>
-  strokes: readonly Stroke[]
-  view: DiskView
-  baseVersion: number
-  edits: number
-  savedEdit: number
-  /** The drawing the server holds at `baseVersion` (absent in copies written before saves were operations). */
-  confirmed?: DrawingState | null
-  /** A save that was sent but not confirmed: retried with the same id, it lands at most once. */
-  pending: PendingSave | null
-  writtenAt: string
-}
+import type { LocalCopy, PendingSave } from './useSketchLocal'
 
 const AUTOSAVE_EVERY_MS = 5000
 /** Saves wait for a pause in the drawing, so an autosave never cuts into a run of strokes. */
 const QUIET_MS = 1500
-
-const localKey = (id: string) => `shadowline.sketch.${id}`
 
 /** A save kept by an editor from before saves were operations carries no request: it is built afresh. */
 function replayable(saved: PendingSave | null | undefined): PendingSave | null {
@@ -77,6 +43,7 @@ export function randomUuid(): string {
  */
 export function useSketchSync(id: string) {
   const store = useSketchStore()
+  const local = useSketchLocal(id)
   const online = ref(true)
   let pending: LocalCopy['pending'] = null
   /** Set when the server refused a list of changes: the next save sends the whole drawing. */
@@ -92,7 +59,7 @@ export function useSketchSync(id: string) {
     if (!detail || !detail.editable) return
     const { shapes: _shapes, ...meta } = detail
     const copy: LocalCopy = { id, detail: meta, ...store.localState(), pending, writtenAt: new Date().toISOString() }
-    await writeLocal(localKey(id), copy).catch(() => undefined)
+    await local.write(copy).catch(() => undefined)
   }
 
   let writing: Promise<void> | null = null
@@ -100,8 +67,7 @@ export function useSketchSync(id: string) {
 
   /**
    * Writes when the page is next idle (within half a second), never inside the pointer event that ended a
-   * stroke: copying the drawing for IndexedDB grows with it. Changes made while a write is running are
-   * written right after it, in one go.
+   * stroke. Changes made while a write is running are written right after it, in one go.
    */
   function persistSoon() {
     if (writing) {
@@ -119,18 +85,18 @@ export function useSketchSync(id: string) {
 
   /** Opens the sketch from the server's answer and whatever this device still holds. */
   async function open(server: SketchDetail | null): Promise<boolean> {
-    const local = await readLocal<LocalCopy>(localKey(id)).catch(() => undefined)
-    const unconfirmed = local && local.edits !== local.savedEdit
+    const copy = await local.read().catch(() => undefined)
+    const unconfirmed = copy && copy.edits !== copy.savedEdit
     if (!server) {
-      if (!local) return false
-      store.open({ ...local.detail, shapes: { schemaVersion: SHAPES_SCHEMA_VERSION, frame: { size: SKETCH_SIZE, diskRadius: DISK_RADIUS }, strokes: [] } }, local, false)
-      pending = replayable(local.pending)
+      if (!copy) return false
+      store.open({ ...copy.detail, shapes: { schemaVersion: SHAPES_SCHEMA_VERSION, frame: { size: SKETCH_SIZE, diskRadius: DISK_RADIUS }, strokes: [] } }, copy, false)
+      pending = replayable(copy.pending)
       store.sync = 'offline'
       return true
     }
-    if (server.editable && local && unconfirmed) {
-      store.open(server, local)
-      pending = replayable(local.pending)
+    if (server.editable && copy && unconfirmed) {
+      store.open(server, copy)
+      pending = replayable(copy.pending)
       // The server decides: the save lands, or a 409 shows that another copy moved on.
       store.sync = 'pending'
     }
@@ -139,6 +105,7 @@ export function useSketchSync(id: string) {
       store.sync = server.editable ? 'saved' : 'read-only'
     }
     await persist()
+    void local.sweep().catch(() => undefined)
     return true
   }
 

@@ -130,11 +130,12 @@ describe('drawing, saving and reloading', () => {
     // The first pen contact turns palm rejection on.
     await page.getByRole('button', { name: /Pen only: fingers move the view/ }).waitFor()
 
+    // On a slow machine the autosave may take the first stroke before the button is pressed: two versions.
     await page.getByRole('button', { name: 'Save now' }).click()
     await expect.poll(() => syncState(page), { timeout: 20_000 }).toBe('saved')
-    await page.getByText('Saved · version 2').waitFor()
     const saved = await serverCopy(context, id)
-    expect(saved.version).toBe(2)
+    expect([2, 3]).toContain(saved.version)
+    await page.getByText(`Saved · version ${saved.version}`).waitFor()
     const [mouse, pen] = saved.shapes.strokes
     expect(mouse).toMatchObject({ tool: 'pencil', pen: false, tone: 1 })
     expect(pen).toMatchObject({ tool: 'pencil', pen: true })
