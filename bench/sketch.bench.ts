@@ -105,11 +105,14 @@ class Http {
   constructor(readonly base: string, readonly cookie: string) {}
   async json(method: string, path: string, body?: unknown) {
     const start = performance.now()
-    const response = await fetch(this.base + path, {
+    const send = () => fetch(this.base + path, {
       method,
       headers: { cookie: this.cookie, accept: 'application/json', ...(body === undefined ? {} : { 'content-type': 'application/json' }) },
       body: body === undefined ? undefined : JSON.stringify(body),
     })
+    // A kept-alive connection the server closed just as it was reused fails before any answer. Sending the
+    // same request again is safe: a save carries its id, and lands once however often it is sent.
+    const response = await send().catch(send).catch(send)
     const text = await response.text()
     const ms = performance.now() - start
     let parsed: any = null // eslint-disable-line @typescript-eslint/no-explicit-any -- the answers' shapes vary by route
