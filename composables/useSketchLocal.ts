@@ -84,9 +84,16 @@ export function useSketchLocal(sketchId: string) {
       confirmed: copy.confirmed ? drawing(copy.confirmed) : null,
       pending: copy.pending ? { ...copy.pending, result: drawing(copy.pending.result) } : null,
     }
-    // The strokes first, so the record never names a stroke that is not stored.
-    if (fresh.size) await setMany([...fresh])
+    // The strokes first, so the record never names a stroke that is not stored. They count as written from
+    // the start, so a sweep running meanwhile leaves them alone.
     for (const key of fresh.keys()) written.add(key)
+    try {
+      if (fresh.size) await setMany([...fresh])
+    }
+    catch (error) {
+      for (const key of fresh.keys()) written.delete(key)
+      throw error
+    }
     await set(recordKey, stored)
   }
 
@@ -116,14 +123,14 @@ export function useSketchLocal(sketchId: string) {
     }
   }
 
-  /** Removes the stroke records the copy no longer names (undone strokes, drawings turned since). */
+  /**
+   * Removes the stroke records that an earlier visit left and the copy no longer names (strokes undone,
+   * drawings turned since). Records this page has read or written are never touched.
+   */
   async function sweep(): Promise<void> {
-    const stored = await get<StoredCopy | LocalCopy>(recordKey)
-    if (!stored || !('format' in stored)) return
-    const named = new Set([...stored.strokes, ...(stored.confirmed?.strokes ?? []), ...(stored.pending?.result.strokes ?? [])])
-    const unused = (await keys<string>()).filter(key => typeof key === 'string' && key.startsWith(strokePrefix) && !named.has(key))
+    const all = await keys<string>()
+    const unused = all.filter(key => typeof key === 'string' && key.startsWith(strokePrefix) && !written.has(key))
     if (unused.length) await delMany(unused)
-    for (const key of unused) written.delete(key)
   }
 
   return { read, write, sweep }
