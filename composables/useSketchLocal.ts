@@ -61,6 +61,8 @@ export function useSketchLocal(sketchId: string) {
   const strokePrefix = `shadowline.stroke.${sketchId}.`
   const keyOf = new WeakMap<Stroke, string>()
   const written = new Set<string>()
+  /** When the copy was last written, as found on opening. */
+  let foundWrittenAt = 0
 
   function keysOf(strokes: readonly Stroke[], fresh: Map<string, Stroke>): string[] {
     return strokes.map((stroke) => {
@@ -100,6 +102,7 @@ export function useSketchLocal(sketchId: string) {
   /** The copy with its strokes, or undefined; a copy written before strokes had records of their own is read as it is. */
   async function read(): Promise<LocalCopy | undefined> {
     const stored = await get<StoredCopy | LocalCopy>(recordKey)
+    foundWrittenAt = stored ? Date.parse(stored.writtenAt) || 0 : 0
     if (!stored || !('format' in stored)) return stored
     const wanted = [...new Set([...stored.strokes, ...(stored.confirmed?.strokes ?? []), ...(stored.pending?.result.strokes ?? [])])]
     const found = await getMany<Stroke | undefined>(wanted)
@@ -125,9 +128,11 @@ export function useSketchLocal(sketchId: string) {
 
   /**
    * Removes the stroke records that an earlier visit left and the copy no longer names (strokes undone,
-   * drawings turned since). Records this page has read or written are never touched.
+   * drawings turned since). Records this page has read or written are never touched, and nothing is swept
+   * while another tab may be drawing on the same sketch (its copy was written in the last minute).
    */
   async function sweep(): Promise<void> {
+    if (Date.now() - foundWrittenAt < 60_000) return
     const all = await keys<string>()
     const unused = all.filter(key => typeof key === 'string' && key.startsWith(strokePrefix) && !written.has(key))
     if (unused.length) await delMany(unused)
