@@ -17,13 +17,6 @@ function replayable(saved: PendingSave | null | undefined): PendingSave | null {
   return saved?.method && saved.body ? saved : null
 }
 
-function whenIdle(): Promise<void> {
-  return new Promise((resolve) => {
-    if (typeof requestIdleCallback === 'function') requestIdleCallback(() => resolve(), { timeout: 500 })
-    else setTimeout(resolve, 0)
-  })
-}
-
 /** A v4 UUID, also where crypto.randomUUID is missing (pages served over plain http on a club network). */
 export function randomUuid(): string {
   if (typeof crypto.randomUUID === 'function') return crypto.randomUUID()
@@ -35,7 +28,7 @@ export function randomUuid(): string {
 }
 
 /**
- * Never lose a stroke: every change is written to IndexedDB as soon as the page is idle, a reopened page
+ * Never lose a stroke: every change is written to IndexedDB at once, a reopened page
  * takes the local copy when it holds edits the server has not confirmed, and saves go to the server on
  * request and every few seconds while online. A save sends only what changed since the drawing the server
  * confirmed (PATCH); the whole drawing goes (PUT) when this device no longer knows that drawing, or the
@@ -66,15 +59,15 @@ export function useSketchSync(id: string) {
   let writeAgain = false
 
   /**
-   * Writes when the page is next idle (within half a second), never inside the pointer event that ended a
-   * stroke. Changes made while a write is running are written right after it, in one go.
+   * Writes at once (a new stroke is one small record and the list of keys: useSketchLocal); changes made
+   * while a write is running are written right after it, in one go.
    */
   function persistSoon() {
     if (writing) {
       writeAgain = true
       return
     }
-    writing = whenIdle().then(persist).finally(() => {
+    writing = persist().finally(() => {
       writing = null
       if (writeAgain) {
         writeAgain = false
