@@ -54,9 +54,18 @@ export default defineNuxtConfig({
   },
   srcDir: '.',
   serverDir: 'server',
+  experimental: {
+    // Links fetch the code of the page they lead to when touched or focused, not as soon as they scroll
+    // into view: on a phone on a slow or metered connection, a page downloads what it shows.
+    defaults: { nuxtLink: { prefetchOn: { visibility: false, interaction: true } } },
+  },
   compatibilityDate: '2026-11-01',
   nitro: {
     experimental: { tasks: false },
+    // Brotli and gzip copies of the built JS, CSS and other text assets, written at build time and served by
+    // the built server to every browser that accepts them (hashed /_nuxt/ files keep their year-long
+    // immutable caching). WOFF2 fonts are compressed inside already and are served as they are.
+    compressPublicAssets: { gzip: true, brotli: true },
     externals: {
       // Native and CommonJS-heavy packages are loaded from the project's node_modules
       // at run time rather than bundled or copied: the server runs from the checkout.
