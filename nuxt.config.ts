@@ -45,6 +45,7 @@ export default defineNuxtConfig({
       embeddedPort: '2525',
     },
     outboxIntervalMs: '5000',
+    trustedProxies: '',
     public: {
       siteUrl: '',
     },

@@ -11,8 +11,8 @@ export default defineConfig({
     alias: { '#shared': fileURLToPath(new URL('./shared', import.meta.url)) },
   },
   test: {
-    // The JSON report gives .ci/run its closing line of totals.
-    reporters: ['default', ['json', { outputFile: '.data/test-results.json' }]],
+    // The JSON report gives .ci/run its closing line of totals; scripts/run-tests.mjs names one a run.
+    reporters: ['default', ['json', { outputFile: process.env.TEST_REPORT || '.data/test-results.json' }]],
     projects: [
       {
         extends: true,
@@ -24,6 +24,11 @@ export default defineConfig({
       },
       {
         extends: true,
+        // On PostgreSQL (TEST_POSTGRES_URL, set by scripts/run-tests.mjs) a test that opens its app's
+        // SQLite file with better-sqlite3 gets the app's PostgreSQL database instead.
+        resolve: process.env.TEST_POSTGRES_URL
+          ? { alias: { 'better-sqlite3': fileURLToPath(new URL('./tests/support/sqliteOnPostgres.ts', import.meta.url)) } }
+          : undefined,
         test: {
           name: 'server',
           environment: 'node',

@@ -22,6 +22,7 @@ const ITEMS: NavItem[] = [
   { to: '/safety', label: 'Observing safely' },
   { to: '/admin/users', label: 'Accounts', role: 'admin' },
   { to: '/admin/mail', label: 'Caught mail', role: 'admin' },
+  { to: '/admin/outbox', label: 'Undelivered mail', role: 'admin' },
 ]
 
 /** The navigation the signed-in role may use; the server checks every route anyway. */

@@ -10,6 +10,9 @@ interface Contact {
   type: string
 }
 
+// A finger that moves no further than this between down and up is a tap (common practice: about 8–10 px).
+const TAP_SLOP_PX = 8
+
 /**
  * Pointer input on the canvas: drawing with pen, mouse or finger, one-finger or mouse panning with the move
  * tool, two-finger pinch, wheel zoom. In pen-only mode fingers never draw: they move the view, and while the
@@ -25,7 +28,7 @@ export function useSketchInput(
   const store = useSketchStore()
   const contacts = new Map<number, Contact>()
   let drawing: { pointerId: number, draft: StrokeDraft } | null = null
-  let panning: { pointerId: number, x: number, y: number } | null = null
+  let panning: { pointerId: number, x: number, y: number, tap?: { x: number, y: number } | null } | null = null
   let pinch: { distance: number, x: number, y: number } | null = null
   let penSeen = false
 
@@ -87,7 +90,10 @@ export function useSketchInput(
     }
     const navigate = store.tool === 'move' || event.button === 1 || !store.editable || (touch && store.penOnly)
     if (navigate) {
-      panning = { pointerId: event.pointerId, ...local(event) }
+      // With "Name a place", a finger that taps still pins (pen-only stops fingers drawing, not naming);
+      // one that drags moves the view.
+      const tapToPin = touch && store.tool === 'pin'
+      panning = { pointerId: event.pointerId, ...local(event), tap: tapToPin ? local(event) : null }
       return
     }
     if (drawing) return
@@ -116,7 +122,8 @@ export function useSketchInput(
     }
     if (panning?.pointerId === event.pointerId) {
       viewport.panBy(contact.x - panning.x, contact.y - panning.y)
-      panning = { pointerId: event.pointerId, x: contact.x, y: contact.y }
+      const tap = panning.tap && Math.hypot(contact.x - panning.tap.x, contact.y - panning.tap.y) <= TAP_SLOP_PX ? panning.tap : null
+      panning = { pointerId: event.pointerId, x: contact.x, y: contact.y, tap }
       return
     }
     if (drawing?.pointerId !== event.pointerId) return
@@ -139,7 +146,11 @@ export function useSketchInput(
       if (event.type === 'pointerup') commit()
       cancelDrawing()
     }
-    if (panning?.pointerId === event.pointerId) panning = null
+    if (panning?.pointerId === event.pointerId) {
+      const tap = panning.tap
+      panning = null
+      if (tap && event.type === 'pointerup' && store.tool === 'pin') onPin(viewport.toSketch(tap.x, tap.y))
+    }
     if (pinch && touches().length < 2) pinch = null
   }
 

@@ -47,9 +47,16 @@ export interface AuthTokensTable {
   created_at: CreatedAt
 }
 
+export interface UserSessionsTable {
+  id: string
+  user_id: string
+  created_at: CreatedAt
+  expires_at: Instant
+}
+
 export interface SigninFailuresTable {
   id: string
-  scope: 'account' | 'address'
+  scope: 'account' | 'address' | 'pair'
   key: string
   at: Instant
 }
@@ -66,6 +73,14 @@ export interface MailOutboxTable {
   failed_at: Instant | null
   last_error: string | null
   created_at: CreatedAt
+  /** Past this instant the message is no longer worth sending (a link that has expired); null: always. */
+  useful_until: Instant | null
+}
+
+export interface ObjectRemovalsTable {
+  object_key: string
+  queued_at: Instant
+  attempts: ColumnType<number, number | undefined, number>
 }
 
 export interface AuditLogTable {
@@ -268,6 +283,8 @@ export interface Database {
   sites: SitesTable
   auth_tokens: AuthTokensTable
   signin_failures: SigninFailuresTable
+  user_sessions: UserSessionsTable
+  object_removals: ObjectRemovalsTable
   mail_outbox: MailOutboxTable
   audit_log: AuditLogTable
   observations: ObservationsTable

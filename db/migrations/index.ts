@@ -5,6 +5,7 @@ import * as sketches from './2026-12-02-03-sketches'
 import * as sketchSaveId from './2026-12-02-05-sketch-save-id'
 import * as review from './2026-12-02-06-review'
 import * as features from './2026-12-02-07-features'
+import * as sessionsOutboxRemovals from './2026-12-02-10-sessions-outbox-removals'
 import * as sketchHistory from './2026-12-02-30-sketch-history'
 
 // Migrations are imported statically so they survive the server bundle.
@@ -16,6 +17,7 @@ export const migrations: Record<string, Migration> = {
   '2026-12-02-05-sketch-save-id': sketchSaveId,
   '2026-12-02-06-review': review,
   '2026-12-02-07-features': features,
+  '2026-12-02-10-sessions-outbox-removals': sessionsOutboxRemovals,
   '2026-12-02-30-sketch-history': sketchHistory,
 }
 

@@ -14,11 +14,16 @@ import { sketchTemplate } from '#shared/sketch/template'
 // fresh install shows a working atlas. Demo data only.
 
 const VIEW: DiskView = { orientation: 'zenith-up', flip: 'none' }
+// Invented places at fixed selenographic positions, so every sketch that pins one puts it in the same place.
+// A night's sketch draws those that lie on the lit side within 30° of the terminator, where shadows show.
 const CRATERS = [
-  { name: 'Lantern ridge', lat: 18, offset: 6, confirmed: true },
-  { name: 'Brackenfield twin craters', lat: -8, offset: 9, confirmed: true },
-  { name: 'Mill pond plain', lat: 32, offset: 14, confirmed: false },
+  { name: 'Lantern ridge', lat: 18, lon: 46, r: 40, confirmed: true },
+  { name: 'Brackenfield twin craters', lat: -8, lon: 21, r: 44, confirmed: true },
+  { name: 'Mill pond plain', lat: 32, lon: -3, r: 54, confirmed: false },
+  { name: 'Heron scarp', lat: -26, lon: -27, r: 38, confirmed: false },
+  { name: 'Owl hollow', lat: 9, lon: -52, r: 36, confirmed: false },
 ]
+const NEAR_TERMINATOR_DEG = 30
 
 const triple = (points: number[], pressure = 0.5) => {
   const out: number[] = []
@@ -44,10 +49,12 @@ export function demoDrawing(c: StoredCircumstances) {
   const litward = terminator.kind === 'sunrise' ? 1 : -1
   const places: { name: string, confirmed: boolean, x: number, y: number }[] = []
   for (const crater of CRATERS) {
-    const disk = selenographicToDisk(crater.lat, terminator.longitudeDeg + litward * crater.offset, c, VIEW)
+    const fromTerminator = litward * (crater.lon - terminator.longitudeDeg)
+    if (fromTerminator < 2 || fromTerminator > NEAR_TERMINATOR_DEG) continue
+    const disk = selenographicToDisk(crater.lat, crater.lon, c, VIEW)
     if (!disk) continue
     const at = diskToSketch(disk)
-    const r = 26 + crater.offset * 2
+    const r = crater.r
     strokes.push(
       { id: `rim-${places.length}`, tool: 'pencil', tone: 0.2, size: 6, pen: false, points: triple(circle(at.x, at.y, r), 0.5) },
       { id: `shadow-${places.length}`, tool: 'shade', tone: 0.1, size: 24, points: triple([at.x - r * 0.4, at.y - r * 0.3, at.x - r * 0.1, at.y + r * 0.3]) },

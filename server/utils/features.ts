@@ -4,6 +4,7 @@ import type { Kysely } from 'kysely'
 import type { Database, Feature } from '../../db/schema'
 import { nameKey, similarity, trigrams } from '#shared/features/names'
 import { distanceFromTerminator, meanPosition } from '#shared/features/position'
+import { featureIsVisible } from './privacy'
 
 type Db = Kysely<Database>
 
@@ -101,7 +102,7 @@ function scoreName(queryWords: string[], queryGrams: string[], nameKeyText: stri
  * the query's rarest trigrams, ranked by Jaccard likeness, so a slip of a letter still finds the name.
  * Case and accents never matter: everything is matched on folded keys.
  */
-export async function searchFeatures(db: Db, query: string, limit = 20, status?: 'proposed' | 'confirmed'): Promise<FeatureMatch[]> {
+export async function searchFeatures(db: Db, query: string, limit = 20, status?: 'proposed' | 'confirmed', viewerId: string | null = null): Promise<FeatureMatch[]> {
   const key = nameKey(query)
   const queryWords = key.split(' ').filter(Boolean)
   if (!queryWords.length) return []
@@ -110,7 +111,7 @@ export async function searchFeatures(db: Db, query: string, limit = 20, status?:
   const longest = [...queryWords].reverse().sort((a, b) => b.length - a.length)[0]!
 
   const names = (narrow: (q: ReturnType<typeof namesQuery>) => ReturnType<typeof namesQuery>) => {
-    let q = narrow(namesQuery(db))
+    let q = narrow(namesQuery(db)).where(featureIsVisible(viewerId))
     if (status) q = q.where('features.status', '=', status)
     return q.execute()
   }

@@ -7,6 +7,8 @@ export interface OutgoingMail {
   to: string
   subject: string
   text: string
+  /** How long after queueing the message is still worth sending; unset: always (a review decision). */
+  usefulForMs?: number
 }
 
 export interface MailTransportConfig {
@@ -19,8 +21,9 @@ export interface MailTransportConfig {
   plain?: boolean
 }
 
-export const OUTBOX_MAX_ATTEMPTS = 10
 const LEASE_MS = 60_000
+/** Why a message was never sent: its link had expired before the relay could take it. */
+export const OUTBOX_EXPIRED = 'Not sent: the message had expired before the mail server could take it.'
 
 export function createMailTransport(config: MailTransportConfig): Transporter {
   return nodemailer.createTransport({
@@ -49,19 +52,24 @@ export async function enqueueMail(db: Kysely<Database>, mail: OutgoingMail, now:
     failed_at: null,
     last_error: null,
     created_at: now.toISOString(),
+    useful_until: mail.usefulForMs === undefined ? null : new Date(now.getTime() + mail.usefulForMs).toISOString(),
   }).execute()
   return id
 }
 
-/** 30 s, 1 min, 2 min … capped at an hour. */
+/**
+ * 30 s, 1 min, 2 min … capped at 15 minutes, and tried for as long as the message is useful: mail is never
+ * dropped because the relay was down for a long time, and it goes out within 15 minutes of the relay's return.
+ */
 export function retryDelayMs(attempts: number): number {
-  return Math.min(30_000 * 2 ** Math.max(0, attempts - 1), 60 * 60 * 1000)
+  return Math.min(30_000 * 2 ** Math.max(0, attempts - 1), 15 * 60 * 1000)
 }
 
 export interface DeliveryReport {
   sent: number
   retried: number
-  failed: number
+  /** Given up because the message is no longer useful (its link expired). */
+  expired: number
 }
 
 /**
@@ -76,7 +84,7 @@ export async function deliverDueMail(
   batch = 20,
 ): Promise<DeliveryReport> {
   const at = now.toISOString()
-  const report: DeliveryReport = { sent: 0, retried: 0, failed: 0 }
+  const report: DeliveryReport = { sent: 0, retried: 0, expired: 0 }
   const due = await db.selectFrom('mail_outbox')
     .selectAll()
     .where('sent_at', 'is', null)
@@ -93,30 +101,35 @@ export async function deliverDueMail(
       .where(eb => eb.or([eb('lease_until', 'is', null), eb('lease_until', '<', at)]))
       .executeTakeFirst()
     if (Number(leased.numUpdatedRows) !== 1) continue
+    if (mail.useful_until && mail.useful_until <= at) {
+      await db.updateTable('mail_outbox')
+        .set({ lease_until: null, failed_at: at, last_error: OUTBOX_EXPIRED })
+        .where('id', '=', mail.id)
+        .execute()
+      report.expired += 1
+      continue
+    }
     const attempts = mail.attempts + 1
     try {
       await transport.sendMail({ from, to: mail.to_address, subject: mail.subject, text: mail.text_body })
       await db.updateTable('mail_outbox')
-        .set({ attempts, sent_at: new Date().toISOString(), lease_until: null, last_error: null })
+        .set({ attempts, sent_at: now.toISOString(), lease_until: null, last_error: null })
         .where('id', '=', mail.id)
         .execute()
       report.sent += 1
     }
     catch (error) {
       const message = error instanceof Error ? error.message : String(error)
-      const giveUp = attempts >= OUTBOX_MAX_ATTEMPTS
       await db.updateTable('mail_outbox')
         .set({
           attempts,
           lease_until: null,
           last_error: message.slice(0, 500),
           next_attempt_at: new Date(now.getTime() + retryDelayMs(attempts)).toISOString(),
-          failed_at: giveUp ? now.toISOString() : null,
         })
         .where('id', '=', mail.id)
         .execute()
-      if (giveUp) report.failed += 1
-      else report.retried += 1
+      report.retried += 1
     }
   }
   return report
@@ -157,4 +170,20 @@ export function drainOutbox(db: Kysely<Database>): Promise<void> {
 export async function sendMail(db: Kysely<Database>, mail: OutgoingMail): Promise<void> {
   await enqueueMail(db, mail)
   void drainOutbox(db)
+}
+
+/**
+ * An undelivered message goes back to the front of the queue (an administrator's resend). A message whose
+ * link has expired is not worth sending: its owner asks for a new link instead.
+ */
+export async function requeueMail(db: Kysely<Database>, id: string, now: Date = new Date()): Promise<'queued' | 'expired' | 'missing'> {
+  const mail = await db.selectFrom('mail_outbox').select(['useful_until', 'sent_at']).where('id', '=', id).executeTakeFirst()
+  if (!mail || mail.sent_at) return 'missing'
+  if (mail.useful_until && mail.useful_until <= now.toISOString()) return 'expired'
+  await db.updateTable('mail_outbox')
+    .set({ next_attempt_at: now.toISOString(), failed_at: null, lease_until: null })
+    .where('id', '=', id)
+    .where('sent_at', 'is', null)
+    .execute()
+  return 'queued'
 }

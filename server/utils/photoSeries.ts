@@ -5,6 +5,9 @@ import type { PhotoView } from '#shared/schemas/photo'
 
 const ATTACH_WINDOW_MS = 3 * 3_600_000
 
+/** The note on an observation made to hold a photo; see dropPhotoStartedObservation. */
+export const PHOTO_STARTED_NOTE = 'Started from a photo.'
+
 /**
  * The observation a photo belongs to: the owner's nearest one at the site within three hours, else a new
  * one started from the photo (camera on a tripod, so naked-eye and upright).
@@ -26,7 +29,7 @@ export async function observationForPhoto(userId: string, site: Site, takenAt: D
     localTime: local.time,
     instrument: { kind: 'naked-eye' },
     view: 'upright',
-    notes: 'Started from a photo.',
+    notes: PHOTO_STARTED_NOTE,
   }, site)
   const id = newId()
   const at = nowIso()

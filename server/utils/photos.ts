@@ -3,7 +3,11 @@ import sharp from 'sharp'
 import { zonedInstant } from '#shared/observing/clock'
 
 export const PHOTO_MAX_BYTES = 15 * 1024 * 1024
-const MAX_INPUT_PIXELS = 80_000_000
+/**
+ * Decoding costs time in proportion to pixels, not bytes: a 9 KB PNG can claim 79 megapixels. 50 MP takes
+ * the largest phone and camera sensors in common use (48 MP); the header is checked before any decoding.
+ */
+export const PHOTO_MAX_PIXELS = 50_000_000
 const FULL_EDGE = 3000
 const THUMB_EDGE = 480
 const ACCEPTED = new Set(['jpeg', 'png', 'webp'])
@@ -55,17 +59,24 @@ export async function exifCaptureTime(input: Buffer, timeZone: string): Promise<
 export async function processPhoto(input: Buffer, timeZone: string): Promise<ProcessedPhoto> {
   if (input.length > PHOTO_MAX_BYTES) throw new PhotoRejected(413, `Photos are limited to ${PHOTO_MAX_BYTES / 1024 / 1024} MB.`)
   let format: string | undefined
+  let pixels = 0
   try {
-    format = (await sharp(input, { limitInputPixels: MAX_INPUT_PIXELS }).metadata()).format
+    // Reads the header only (no limit here, or an oversized image would look unreadable rather than too big).
+    const header = await sharp(input, { limitInputPixels: false }).metadata()
+    format = header.format
+    pixels = (header.width ?? 0) * (header.height ?? 0)
   }
   catch {
     throw new PhotoRejected(415, 'That file is not an image Shadowline can read. Use JPEG, PNG or WebP.')
+  }
+  if (pixels > PHOTO_MAX_PIXELS) {
+    throw new PhotoRejected(413, `That image has ${Math.round(pixels / 1e6)} megapixels; photos are limited to ${PHOTO_MAX_PIXELS / 1e6}.`)
   }
   if (format === 'heif') throw new PhotoRejected(415, 'HEIC photos cannot be decoded here. Export the photo as JPEG and upload that.')
   if (!format || !ACCEPTED.has(format)) throw new PhotoRejected(415, 'Use a JPEG, PNG or WebP photo.')
   const exifTakenAt = await exifCaptureTime(input, timeZone)
   try {
-    const upright = sharp(input, { limitInputPixels: MAX_INPUT_PIXELS }).rotate()
+    const upright = sharp(input, { limitInputPixels: PHOTO_MAX_PIXELS }).rotate()
     const { data: full, info } = await upright.clone()
       .resize({ width: FULL_EDGE, height: FULL_EDGE, fit: 'inside', withoutEnlargement: true })
       .webp({ quality: 88 })

@@ -112,7 +112,7 @@ export async function applyTransition(user: User, sketchId: string, action: Entr
   if (action !== 'submit') {
     const owner = await db.selectFrom('users').select(['name', 'email']).where('id', '=', sketch.user_id).executeTakeFirstOrThrow()
     const observation = await db.selectFrom('observations').select('local_date').where('id', '=', sketch.observation_id).executeTakeFirstOrThrow()
-    await sendMail(db, { to: owner.email, ...decisionMail(owner.name, action, observation.local_date, comment, `${base}/entries`) })
+    await sendMail(db, { to: owner.email, ...decisionMail(owner.name, action, observation.local_date, comment, `${base}/entries`, action === 'approve' ? `${base}/atlas/${sketch.id}` : undefined) })
   }
   return { status: check.to, at }
 }

@@ -63,12 +63,13 @@ export async function sketchesForObservations(
 }
 
 /**
- * One sketch with its observation and site, or undefined. Only the owner may write; the owner or a moderator
- * may read (a draft is private to them). The check is part of the query, so another user's sketch is simply
- * not found.
+ * One sketch with its observation and site, or undefined. `read` and `write` are the owner's alone: the
+ * editor's data carries the exact site, and a draft is private. `review` also lets a moderator (or admin) at
+ * a sketch once it has been submitted, for the routes that show nothing but the drawing and its pins. The
+ * check is part of the query, so another user's sketch is simply not found.
  */
-export async function findSketch(db: Kysely<Database>, user: User, id: string, access: 'read' | 'write', withShapes = false) {
-  const moderator = hasRole(user.role, 'moderator')
+export async function findSketch(db: Kysely<Database>, user: User, id: string, access: 'read' | 'write' | 'review', withShapes = false) {
+  const reviewer = access === 'review' && hasRole(user.role, 'moderator')
   return db.selectFrom('sketches as k')
     .innerJoin('observations as o', 'o.id', 'k.observation_id')
     .innerJoin('sites as s', 's.id', 'o.site_id')
@@ -86,7 +87,9 @@ export async function findSketch(db: Kysely<Database>, user: User, id: string, a
       'u.name as owner_name',
     ])
     .where('k.id', '=', id)
-    .$if(access === 'write' || !moderator, qb => qb.where('k.user_id', '=', user.id))
+    .where(eb => reviewer
+      ? eb.or([eb('k.user_id', '=', user.id), eb('k.status', '!=', 'draft')])
+      : eb('k.user_id', '=', user.id))
     .executeTakeFirst()
 }
 

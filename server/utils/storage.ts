@@ -3,6 +3,7 @@ import {
   DeleteObjectCommand,
   GetObjectCommand,
   HeadBucketCommand,
+  ListObjectsV2Command,
   NoSuchKey,
   PutObjectCommand,
   S3Client,
@@ -29,6 +30,8 @@ export interface ObjectStore {
   put(key: string, body: Buffer | Uint8Array, contentType: string): Promise<void>
   get(key: string): Promise<StoredObject | null>
   remove(key: string): Promise<void>
+  /** Every key under a prefix (`sketches/<id>/`), for removing what a deleted row owned. */
+  list(prefix: string): Promise<string[]>
 }
 
 /** A small store over any S3-compatible service: the embedded s3rver or a real one. */
@@ -69,6 +72,16 @@ export function createObjectStore(config: ObjectStoreConfig): ObjectStore {
     },
     async remove(key) {
       await client.send(new DeleteObjectCommand({ Bucket, Key: key }))
+    },
+    async list(prefix) {
+      const keys: string[] = []
+      let ContinuationToken: string | undefined
+      do {
+        const page = await client.send(new ListObjectsV2Command({ Bucket, Prefix: prefix, ContinuationToken }))
+        for (const item of page.Contents ?? []) if (item.Key) keys.push(item.Key)
+        ContinuationToken = page.IsTruncated ? page.NextContinuationToken : undefined
+      } while (ContinuationToken)
+      return keys
     },
   }
 }

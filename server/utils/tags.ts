@@ -3,7 +3,7 @@ import type { DiskView } from '#shared/lunar'
 import type { StoredCircumstances } from '#shared/observing/night'
 
 /** A sketch with what pins need: its view and its observation's circumstances; 404 for others' drafts. */
-export async function sketchForPins(user: User, sketchId: string, access: 'read' | 'write') {
+export async function sketchForPins(user: User, sketchId: string, access: 'read' | 'write' | 'review') {
   const db = useDb()
   const row = await findSketch(db, user, sketchId, access)
   if (!row) throw createError({ status: 404, message: 'No such sketch among yours.' })

@@ -26,9 +26,12 @@ export function zonedInstant(localDate: string, localTime: string, timeZone: str
   const t = /^(\d{2}):(\d{2})(?::(\d{2}))?$/.exec(localTime)
   if (!d) throw new RangeError(`localDate must be YYYY-MM-DD; got ${JSON.stringify(localDate)}`)
   if (!t) throw new RangeError(`localTime must be HH:MM; got ${JSON.stringify(localTime)}`)
-  const wanted = Date.UTC(Number(d[1]), Number(d[2]) - 1, Number(d[3]), Number(t[1]), Number(t[2]), Number(t[3] ?? 0))
-  const check = new Date(wanted)
-  if (check.getUTCDate() !== Number(d[3]) || check.getUTCHours() !== Number(t[1]) || check.getUTCMinutes() !== Number(t[2])) {
+  // setUTCFullYear, unlike Date.UTC, takes a year below 100 as it is rather than as 19xx.
+  const check = new Date(0)
+  check.setUTCFullYear(Number(d[1]), Number(d[2]) - 1, Number(d[3]))
+  check.setUTCHours(Number(t[1]), Number(t[2]), Number(t[3] ?? 0), 0)
+  const wanted = check.getTime()
+  if (check.getUTCFullYear() !== Number(d[1]) || check.getUTCDate() !== Number(d[3]) || check.getUTCHours() !== Number(t[1]) || check.getUTCMinutes() !== Number(t[2])) {
     throw new RangeError(`${localDate} ${localTime} is not a real date and time`)
   }
   // Offsets a day either side bracket any clock change near the wanted time.

@@ -9,6 +9,7 @@ import {
   type LunarCircumstances,
   type RiseSetTransit,
 } from '../lunar'
+import { moonPass } from './moonpass'
 
 export interface ObservingSite {
   latitude: number
@@ -50,7 +51,9 @@ export function computeNight(at: Date, site: ObservingSite): StoredCircumstances
     ...circumstances,
     localDate,
     timeZone: site.timeZone,
-    moon: stored(riseSetTransit('moon', localDate, place, site.timeZone)),
+    // The Moon's pass under way at the instant (it rose before and sets after), or the next one: never a
+    // calendar day's first rising or setting, which may belong to the night before.
+    moon: (({ rise, transit, set }) => ({ rise, transit, set }))(moonPass(at, site)),
     sun: stored(riseSetTransit('sun', localDate, place, site.timeZone)),
     sunAltitudeDeg: caution.sunAltitudeDeg,
     moonSunSeparationDeg: caution.moonSunSeparationDeg,
@@ -58,4 +61,4 @@ export function computeNight(at: Date, site: ObservingSite): StoredCircumstances
   }
 }
 
-export const COMPUTED_WITH = `shadowline-night/1 ${LUNAR_MODEL_VERSION}`
+export const COMPUTED_WITH = `shadowline-night/2 ${LUNAR_MODEL_VERSION}`

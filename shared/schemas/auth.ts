@@ -37,6 +37,11 @@ export const ForgotBody = z.object({ email: Email })
 
 export const ResetBody = TokenBody.extend({ password: NewPassword })
 
+export const PasswordChangeBody = z.object({
+  currentPassword: z.string().min(1, 'Enter your current password.').max(200),
+  password: NewPassword,
+})
+
 export const RoleChangeBody = z.object({
   role: z.enum(ROLES).optional(),
   disabled: z.boolean().optional(),

@@ -1,15 +1,7 @@
 import { z } from 'zod'
 import { PHASE_NAMES } from '../observing/phases'
 
-// The years the computation is trusted for (astronomy-engine's models and this app's tests).
-export const FIRST_YEAR = 1900
-export const LAST_YEAR = 2100
-
-const LocalDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Enter the date as YYYY-MM-DD.')
-  .refine((s) => {
-    const year = Number(s.slice(0, 4))
-    return year >= FIRST_YEAR && year <= LAST_YEAR
-  }, `Shadowline works with dates from ${FIRST_YEAR} to ${LAST_YEAR}.`)
+import { LocalDate } from './dates'
 
 const LocalTime = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d(:[0-5]\d)?$/, 'Enter the time as HH:MM (24-hour clock).')
 

@@ -1,14 +1,15 @@
 import { z } from 'zod'
+import { LocalDate } from './dates'
 
 export const PhotoUploadFields = z.object({
   siteId: z.uuid('Choose one of your sites.'),
   /** Optional correction of the capture time, as the site's clock shows it. */
-  localDate: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Enter the date as YYYY-MM-DD.').optional(),
+  localDate: LocalDate.optional(),
   localTime: z.string().regex(/^([01]\d|2[0-3]):[0-5]\d(:[0-5]\d)?$/, 'Enter the time as HH:MM.').optional(),
 })
 
 export const PhotoTimeBody = z.object({
-  localDate: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Enter the date as YYYY-MM-DD.'),
+  localDate: LocalDate,
   localTime: z.string().regex(/^([01]\d|2[0-3]):[0-5]\d(:[0-5]\d)?$/, 'Enter the time as HH:MM.'),
 })
 

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { LocalDate } from './dates'
 import { PHASE_NAMES } from '../observing/phases'
 
 const Comment = z.string().max(4000, 'Comments are limited to 4000 characters.').default('')
@@ -12,7 +13,6 @@ export const DecisionBody = z.object({
 
 const Phase = z.enum(PHASE_NAMES as [string, ...string[]])
 const InstrumentKind = z.enum(['naked-eye', 'binoculars', 'telescope'])
-const LocalDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Enter the date as YYYY-MM-DD.')
 
 export const QueueQuery = z.object({
   phase: Phase.optional(),

@@ -17,6 +17,20 @@ export interface Page<T> {
   perPage: number
 }
 
+/** A message the outbox has not delivered; its text is not shown, as it may hold a sign-in link. */
+export interface UndeliveredMail {
+  id: string
+  to: string
+  subject: string
+  queuedAt: string
+  attempts: number
+  nextAttemptAt: string
+  lastError: string | null
+  /** Set when the outbox gave the message up because its link had expired. */
+  gaveUpAt: string | null
+  usefulUntil: string | null
+}
+
 export interface CaughtMail {
   id: string
   receivedAt: string

@@ -8,6 +8,11 @@ declare module '#auth-utils' {
     role: Role
     verified: boolean
   }
+  interface UserSession {
+    /** The user_sessions row this cookie belongs to; the session ends when the row is gone. */
+    sid?: string
+    loggedInAt?: string
+  }
 }
 
 export {}

@@ -45,6 +45,8 @@ describe('from the eyepiece to the atlas', () => {
 
     await openReady(observer.page, `${app.url}/entries`)
     const entry = observer.page.locator(`[data-entry="${sketchId}"]`)
+    // The saved sketch is shown over the outline of its disk, not as strokes on black.
+    expect(await entry.locator('img').first().evaluate(img => getComputedStyle(img).backgroundImage)).toMatch(/radial-gradient/)
     await entry.getByRole('button', { name: 'Submit for review' }).click()
     await entry.getByText('Waiting for review').waitFor()
 
@@ -55,6 +57,19 @@ describe('from the eyepiece to the atlas', () => {
     await row.getByRole('link', { name: 'Idris Fenwright' }).click()
     await moderator.page.getByRole('heading', { name: 'Decision' }).waitFor()
     expect(await moderator.page.getByRole('link', { name: 'Lamplight bay' }).count()).toBe(1)
+    // The view in words, the sketch over the disk's outline, and the pin on the sketch where it was placed.
+    expect(await moderator.page.getByTestId('review-view').textContent()).toBe('sky view (zenith up), upright')
+    expect(await moderator.page.getByTestId('review-sketch').locator('circle').count()).toBe(1)
+    const pin = moderator.page.getByTestId('review-pin')
+    expect(await pin.count()).toBe(1)
+    expect(await pin.textContent()).toContain('Lamplight bay')
+    // Placed at disk (0.05, 0.1): just right of and above the centre of the sketch (frame: radius 860 of 2048).
+    const frame = (await moderator.page.getByTestId('review-sketch').boundingBox())!
+    const dot = (await pin.locator('span').first().boundingBox())!
+    const cx = (dot.x + dot.width / 2 - frame.x) / frame.width
+    const cy = (dot.y + dot.height / 2 - frame.y) / frame.height
+    expect(cx).toBeCloseTo(0.5 + 0.05 * 860 / 2048, 2)
+    expect(cy).toBeCloseTo(0.5 - 0.1 * 860 / 2048, 2)
     await moderator.page.getByLabel('Comment for the observer').fill('Please mark the terminator where it crosses the crater floors.')
     await moderator.page.screenshot({ path: artifact('review-desk.png'), fullPage: true })
     await moderator.page.getByRole('button', { name: 'Return with comments' }).click()
@@ -68,6 +83,9 @@ describe('from the eyepiece to the atlas', () => {
     await openReady(moderator.page, `${app.url}/review/${sketchId}`)
     await moderator.page.getByRole('button', { name: 'Approve into the atlas' }).click()
     await moderator.page.getByText('In the atlas', { exact: true }).first().waitFor()
+    // The observer's entry now leads to its published atlas page.
+    await observer.page.reload()
+    expect(await entry.getByRole('link', { name: 'See it in the atlas' }).getAttribute('href')).toBe(`/atlas/${sketchId}`)
 
     const visitor = await browser.newPage({ viewport: { width: 1180, height: 820 } })
     await openReady(visitor, `${app.url}/atlas?phase=${phaseName}`)
@@ -81,8 +99,22 @@ describe('from the eyepiece to the atlas', () => {
     await visitor.waitForURL(new RegExp(`phase=${phaseName}`))
     await visitor.locator(`a[href="/atlas/${sketchId}"]`).first().waitFor()
     await visitor.screenshot({ path: artifact('atlas.png'), fullPage: true })
+    // The panel offers feature and observer, as the API does.
+    await openReady(visitor, `${app.url}/atlas`)
+    await visitor.getByLabel('Feature').selectOption({ label: 'Lamplight bay' })
+    await visitor.waitForURL(/feature=[0-9a-f-]{36}/)
+    await visitor.locator(`a[href="/atlas/${sketchId}"]`).first().waitFor()
+    await visitor.getByLabel('Observer').selectOption({ label: 'Idris Fenwright' })
+    await visitor.waitForURL(/observer=[0-9a-f-]{36}/)
+    await visitor.locator(`a[href="/atlas/${sketchId}"]`).first().waitFor()
+    // A bad range is said in words, not as the request that failed.
+    await openReady(visitor, `${app.url}/atlas?colongitudeMin=400&colongitudeMax=10`)
+    await visitor.getByText(/Colongitude runs from 0° to 360°/).waitFor()
+    expect(await visitor.locator('main').textContent()).not.toMatch(/\[GET\]|Validation Error/)
+    await openReady(visitor, `${app.url}/atlas?phase=${phaseName}`)
     await visitor.locator(`a[href="/atlas/${sketchId}"]`).first().click()
     await visitor.getByRole('heading', { name: 'Features pinned' }).waitFor()
+    expect(await visitor.getByRole('img', { name: /^Sketch by/ }).evaluate(img => getComputedStyle(img).backgroundImage)).toMatch(/radial-gradient/)
     await visitor.getByRole('link', { name: 'Lamplight bay' }).waitFor()
     expect(await visitor.getByText(/% of the disk is lit/).count()).toBe(1)
     await visitor.screenshot({ path: artifact('atlas-entry.png'), fullPage: true })

@@ -241,6 +241,53 @@ describe('touch', () => {
   })
 })
 
+describe('the offline worker', () => {
+  it('opens the desk, reloads it and opens it again directly, with a worker and cache named after this build', async () => {
+    const context = await signedIn()
+    const id = await newSketch(context)
+    const errors: string[] = []
+    let page = await openDesk(context, id)
+    page.on('console', m => m.type() === 'error' && errors.push(m.text()))
+    await expect.poll(() => page.evaluate(() => Boolean(navigator.serviceWorker.controller)), { timeout: 20_000 }).toBe(true)
+    // The build's id, as Nuxt publishes it for its own update checks.
+    const buildId = (await (await context.request.get(`${app.url}/_nuxt/builds/latest.json`)).json()).id as string
+    expect(buildId).toMatch(/\w/)
+    expect(await page.evaluate(() => navigator.serviceWorker.controller!.scriptURL)).toContain(`build=${buildId}`)
+    await expect.poll(() => page.evaluate(() => caches.keys()), { timeout: 20_000 }).toEqual([`shadowline-sketch-pages-${buildId}`])
+
+    await page.reload()
+    await page.getByTestId('sketch-canvas').waitFor()
+    await expect.poll(() => syncState(page)).toBe('saved')
+    await page.close()
+    page = await openDesk(context, id)
+    page.on('console', m => m.type() === 'error' && errors.push(m.text()))
+    await page.reload()
+    await page.getByTestId('sketch-canvas').waitFor()
+    expect(errors.filter(e => /MIME|Failed to fetch dynamically imported module/i.test(e))).toEqual([])
+    await context.close()
+  })
+})
+
+describe('naming a place by touch', () => {
+  it('after the pen has been used, a finger tap with "Name a place" still pins', async () => {
+    const context = await signedIn({ hasTouch: true })
+    const id = await newSketch(context)
+    const page = await openDesk(context, id)
+    const cdp = await context.newCDPSession(page)
+    await drawWithPen(page, cdp, Array.from({ length: 10 }, (_, i) => [800 + 30 * i, 1200, 0.5] as [number, number, number]))
+    await page.getByRole('button', { name: /Pen only: fingers move the view/ }).waitFor()
+    await page.getByRole('button', { name: 'Name a place', exact: true }).click()
+    const at = await screen(page, 1100, 900)
+    const touch = (type: string, points: { x: number, y: number }[]) =>
+      cdp.send('Input.dispatchTouchEvent', { type, touchPoints: points.map((p, i) => ({ ...p, id: i + 1 })) } as never)
+    await touch('touchStart', [at])
+    await touch('touchEnd', [])
+    await page.getByRole('dialog').waitFor({ timeout: 5_000 })
+    expect(await strokeCount(page)).toBe(1)
+    await context.close()
+  })
+})
+
 describe('never losing a stroke', () => {
   it('keeps strokes drawn offline, still has them after an offline reload, and saves them once back online', async () => {
     const context = await signedIn()

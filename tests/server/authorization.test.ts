@@ -55,6 +55,9 @@ const ROUTES: Record<string, Role | null> = {
   'GET /api/admin/users': 'admin',
   'PATCH /api/admin/users/[id]': 'admin',
   'GET /api/admin/mail': 'admin',
+  'GET /api/admin/outbox': 'admin',
+  'POST /api/admin/outbox/[id]/resend': 'admin',
+  'POST /api/auth/password': 'learner',
   'GET /api/sketches/offline-worker': null,
   'GET /api/sketches': 'observer',
   'POST /api/sketches': 'observer',
@@ -66,6 +69,8 @@ const ROUTES: Record<string, Role | null> = {
   'GET /api/sketches/[id]/revisions': 'observer',
   'GET /api/sketches/[id]/thumbnail': 'observer',
   'GET /api/sketches/[id]/raster': 'observer',
+  // Last: it ends the test clients' sessions.
+  'POST /api/auth/sign-out-everywhere': 'learner',
 }
 
 const apiDir = resolve(import.meta.dirname, '../../server/api')

@@ -65,6 +65,11 @@ describe('the entry lifecycle', () => {
     }
     expect(subjects).toContain('Your sketch was returned with comments')
     expect(subjects).toContain('Your sketch is in the atlas')
+    // The approval links to the published atlas page, which opens for anyone.
+    const approval = (await caughtMail(app.dataDir)).find(m => m.to.includes(DEMO.observer.email) && m.subject === 'Your sketch is in the atlas')!
+    const link = /See it in the atlas: (\S+)/.exec(approval.text)?.[1]
+    expect(link).toMatch(new RegExp(`/atlas/${id}$`))
+    expect((await new Client(app.url).get(new URL(link!).pathname.replace('/atlas/', '/api/atlas/'))).status).toBe(200)
   })
 
   it('refuses transitions by the wrong role, the wrong person or from the wrong state', async () => {

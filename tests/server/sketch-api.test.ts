@@ -424,11 +424,11 @@ describe('nobody sees or changes a sketch that is not theirs', () => {
     expect((await observer.call('POST', '/api/sketches', { observationId: 'not-an-id' })).status).toBe(400)
   })
 
-  it('lets a moderator read the draft but not change it', async () => {
-    const read = await moderator.call('GET', `/api/sketches/${id}`)
-    expect(read.status).toBe(200)
-    expect(read.body).toMatchObject({ editable: false, owner: { name: 'Idris Fenwright' } })
-    expect((await moderator.image(`/api/sketches/${id}/thumbnail`)).status).toBe(200)
+  it('keeps the draft from a moderator too: it is its owner\'s alone', async () => {
+    expect((await moderator.call('GET', `/api/sketches/${id}`)).status).toBe(404)
+    expect((await moderator.image(`/api/sketches/${id}/thumbnail`)).status).toBe(404)
+    expect((await moderator.call('GET', `/api/sketches/${id}/revisions`)).status).toBe(404)
+    expect((await moderator.image(`/api/sketches/${id}/revisions/1/thumbnail`)).status).toBe(404)
     expect((await moderator.save(id, 2, uuid(22), [pencil('m1', 800)])).status).toBe(404)
     expect((await moderator.patch(id, 2, uuid(25), [add(pencil('m1', 800))])).status).toBe(404)
     expect((await moderator.call('POST', `/api/sketches/${id}/revisions/1/restore`, { baseVersion: 2, saveId: uuid(26) })).status).toBe(404)

@@ -1,9 +1,10 @@
 import { spawn, type ChildProcess } from 'node:child_process'
-import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs'
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 import { getRandomPort } from 'get-port-please'
 import { simpleParser } from 'mailparser'
+import { createTestDatabase } from './database'
 
 const root = resolve(import.meta.dirname, '../..')
 const entry = join(root, '.output/server/index.mjs')
@@ -11,18 +12,25 @@ const entry = join(root, '.output/server/index.mjs')
 export interface RunningApp {
   url: string
   dataDir: string
+  /** What the server has printed so far. */
+  output(): string
   stop(): Promise<void>
 }
 
 /**
  * Starts the built server (`npm run build` first) on a free port with its own
- * data folder, embedded S3 and mail catcher, and the demo accounts.
+ * data folder, embedded S3 and mail catcher, and the demo accounts. With
+ * TEST_POSTGRES_URL set (scripts/run-tests.mjs does) the app gets a fresh
+ * PostgreSQL database instead of its SQLite file.
  */
-export async function startApp(env: Record<string, string> = {}): Promise<RunningApp> {
+export async function startApp(env: Record<string, string> = {}, options: { healthy?: boolean } = {}): Promise<RunningApp> {
   if (!existsSync(entry)) throw new Error('Build the app first: npm run build')
   const port = await getRandomPort('127.0.0.1')
   const dataDir = mkdtempSync(join(tmpdir(), 'shadowline-test-'))
   const url = `http://127.0.0.1:${port}`
+  const database = await createTestDatabase()
+  // tests/support/sqliteOnPostgres.ts finds the database of this data folder here.
+  if (database.url) writeFileSync(join(dataDir, 'database-url'), database.url)
   const child: ChildProcess = spawn(process.execPath, [entry], {
     cwd: root,
     env: {
@@ -37,6 +45,7 @@ export async function startApp(env: Record<string, string> = {}): Promise<Runnin
       NUXT_SMTP_EMBEDDED_PORT: '0',
       NUXT_OUTBOX_INTERVAL_MS: '1000',
       NUXT_PUBLIC_SITE_URL: url,
+      ...(database.url ? { NUXT_DATABASE_URL: database.url } : {}),
       ...env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
@@ -51,10 +60,12 @@ export async function startApp(env: Record<string, string> = {}): Promise<Runnin
 
   const deadline = Date.now() + 60_000
   for (;;) {
-    const ok = await fetch(`${url}/api/health`).then(r => r.ok).catch(() => false)
+    // By default the app must be healthy; `healthy: false` waits only until it answers (a test of start-up).
+    const ok = await fetch(`${url}/api/health`).then(r => r.ok || options.healthy === false).catch(() => false)
     if (ok) break
     if (child.exitCode !== null || Date.now() > deadline) {
       child.kill('SIGKILL')
+      await database.drop()
       throw new Error(`The app did not start:\n${output}`)
     }
     await new Promise(r => setTimeout(r, 150))
@@ -62,11 +73,13 @@ export async function startApp(env: Record<string, string> = {}): Promise<Runnin
   return {
     url,
     dataDir,
+    output: () => output,
     async stop() {
       child.kill('SIGTERM')
       const timer = setTimeout(() => child.kill('SIGKILL'), 5000)
       await exited
       clearTimeout(timer)
+      await database.drop()
       rmSync(dataDir, { recursive: true, force: true })
     },
   }
@@ -78,8 +91,8 @@ export class Client {
 
   constructor(private readonly base: string) {}
 
-  async request(method: string, path: string, body?: unknown): Promise<{ status: number, body: any, headers: Headers }> {
-    const headers: Record<string, string> = { accept: 'application/json' }
+  async request(method: string, path: string, body?: unknown, extraHeaders: Record<string, string> = {}): Promise<{ status: number, body: any, headers: Headers }> {
+    const headers: Record<string, string> = { accept: 'application/json', ...extraHeaders }
     if (body !== undefined) headers['content-type'] = 'application/json'
     if (this.cookies.size) headers.cookie = [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ')
     const response = await fetch(this.base + path, {

@@ -18,6 +18,7 @@ function recordingStore() {
     },
     get: async () => null,
     remove: async () => undefined,
+    list: async () => [],
   }
   return { store, puts }
 }

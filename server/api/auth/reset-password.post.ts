@@ -17,11 +17,13 @@ export default defineEventHandler(async (event) => {
     .where('id', '=', user.id)
     .execute()
   await retireTokens(db, user.id, 'reset-password')
+  // Whoever knew the old password is signed out everywhere.
+  await endSessions(db, user.id)
   await clearSigninFailures(db, user.email)
   // Opening the e-mailed link proves the address as well.
   await markEmailVerified(db, user)
   await audit(db, { actorId: user.id, action: 'user.password-reset', subjectType: 'user', subjectId: user.id })
   await sendMail(db, { to: user.email, ...passwordChangedMail(user.name) })
-  await clearUserSession(event)
+  await clearUserSession(event, sessionConfig(event))
   return { message: 'Your password is changed. Sign in with the new one.' }
 })

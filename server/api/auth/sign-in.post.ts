@@ -1,3 +1,4 @@
+import { setTimeout as sleep } from 'node:timers/promises'
 import { SignInBody } from '#shared/schemas/auth'
 
 const validate = parseWith(SignInBody)
@@ -14,6 +15,8 @@ export default defineEventHandler(async (event) => {
     setResponseHeader(event, 'retry-after', Math.ceil(waitMs / 1000))
     throw createError({ status: 429, message: `Too many attempts. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.` })
   }
+  const pause = await signinSlowdownFor(db, input.email)
+  if (pause > 0) await sleep(pause)
 
   const user = await db.selectFrom('users').selectAll().where('email', '=', input.email).executeTakeFirst()
   const matches = await verifyPassword(user?.password_hash ?? await decoyPasswordHash(), input.password)
@@ -23,7 +26,7 @@ export default defineEventHandler(async (event) => {
   }
 
   await clearSigninFailures(db, input.email)
-  await replaceUserSession(event, { user: toSessionUser(user), loggedInAt: nowIso() })
+  await startSession(event, user)
   await audit(db, { actorId: user.id, action: 'user.signed-in', subjectType: 'user', subjectId: user.id })
   return { user: toSessionUser(user) }
 })

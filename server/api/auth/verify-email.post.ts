@@ -14,6 +14,6 @@ export default defineEventHandler(async (event) => {
   }
   const verified = await markEmailVerified(db, user)
   const session = await getUserSession(event)
-  if (session.user?.id === verified.id) await setUserSession(event, { user: toSessionUser(verified) })
+  if (session.user?.id === verified.id) await setUserSession(event, { user: toSessionUser(verified) }, sessionConfig(event))
   return { message: 'Your address is confirmed.', role: verified.role }
 })

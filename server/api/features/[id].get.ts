@@ -5,8 +5,11 @@ const validParams = parseWith(IdParams)
 // Public: a feature, its names, and every published sketch that pins it, ordered by the lighting.
 export default defineEventHandler(async (event) => {
   const { id } = await getValidatedRouterParams(event, validParams)
+  const viewer = await currentUser(event)
   const db = useDb()
-  const feature = await db.selectFrom('features').selectAll().where('id', '=', id).executeTakeFirst()
+  const feature = await db.selectFrom('features').selectAll().where('id', '=', id)
+    .where(featureIsVisible(viewer?.id ?? null))
+    .executeTakeFirst()
   if (!feature) throw createError({ status: 404, message: 'No such feature.' })
   if (feature.merged_into) return { mergedInto: feature.merged_into }
   const entries = await db.selectFrom('feature_tags')

@@ -8,7 +8,8 @@ export default defineEventHandler(async (event) => {
   await ownObservation(user.id, id)
   const db = useDb()
   await refuseIfJudged(db, id, 'deleted')
-  await db.deleteFrom('observations').where('id', '=', id).where('user_id', '=', user.id).execute()
+  // With its sketches, photos, their stored images and the pins' counts (server/utils/cleanup.ts).
+  await deleteObservation(db, user.id, id)
   await audit(db, { actorId: user.id, action: 'observation.deleted', subjectType: 'observation', subjectId: id })
   setResponseStatus(event, 204)
   return null

@@ -21,6 +21,9 @@ export default defineEventHandler(async (event) => {
   }
   const observationId = await observationForPhoto(user.id, site, takenAt)
   const next = { taken_at: takenAt.toISOString(), taken_at_source: 'observer' as const, observation_id: observationId }
-  await useDb().updateTable('photos').set(next).where('id', '=', id).where('user_id', '=', user.id).execute()
+  const db = useDb()
+  await db.updateTable('photos').set(next).where('id', '=', id).where('user_id', '=', user.id).execute()
+  // The observation the old time started, if nothing else needs it, goes.
+  if (photo.observation_id !== observationId) await dropPhotoStartedObservation(db, user.id, photo.observation_id)
   return photoView({ ...photo, ...next }, site)
 })

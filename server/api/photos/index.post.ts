@@ -1,5 +1,6 @@
 import { PhotoUploadFields } from '#shared/schemas/photo'
 import { zonedInstant } from '#shared/observing/clock'
+import { FIRST_YEAR, LAST_YEAR } from '#shared/schemas/dates'
 
 const validFields = parseWith(PhotoUploadFields)
 
@@ -33,13 +34,14 @@ export default defineEventHandler(async (event) => {
     source = 'observer'
   }
   takenAt ??= new Date()
+  const year = takenAt.getUTCFullYear()
+  if (year < FIRST_YEAR || year > LAST_YEAR) {
+    throw createError({ status: 400, message: `localDate: Shadowline works with dates from ${FIRST_YEAR} to ${LAST_YEAR}; set the photo's date.` })
+  }
 
+  // Objects are written only once everything is known good, and removed again if the rows cannot be.
   const id = newId()
-  const store = useObjectStore()
-  const imageKey = `photos/${user.id}/${id}/full.webp`
-  const thumbKey = `photos/${user.id}/${id}/thumb.webp`
-  await store.put(imageKey, processed.full, 'image/webp')
-  await store.put(thumbKey, processed.thumb, 'image/webp')
+  const db = useDb()
   const observationId = await observationForPhoto(user.id, site, takenAt)
   const row = {
     id,
@@ -49,11 +51,21 @@ export default defineEventHandler(async (event) => {
     taken_at_source: source,
     width: processed.width,
     height: processed.height,
-    image_key: imageKey,
-    thumb_key: thumbKey,
+    image_key: `${photoPrefix(user.id, id)}full.webp`,
+    thumb_key: `${photoPrefix(user.id, id)}thumb.webp`,
     created_at: nowIso(),
   }
-  await useDb().insertInto('photos').values(row).execute()
+  try {
+    const store = useObjectStore()
+    await store.put(row.image_key, processed.full, 'image/webp')
+    await store.put(row.thumb_key, processed.thumb, 'image/webp')
+    await db.insertInto('photos').values(row).execute()
+  }
+  catch (error) {
+    await removeStoredObjects(db, [photoPrefix(user.id, id)])
+    await dropPhotoStartedObservation(db, user.id, observationId)
+    throw error
+  }
   setResponseStatus(event, 201)
   return photoView(row, site)
 })

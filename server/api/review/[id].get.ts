@@ -2,7 +2,8 @@ import { IdParams } from '#shared/schemas/auth'
 
 const validParams = parseWith(IdParams)
 
-// What a moderator needs to decide: the entry, its observation and measurements, and earlier reviews.
+// What a moderator needs to decide: the entry, its observation and measurements, and earlier reviews. The
+// observation is shown as reviewers may see it (server/utils/privacy.ts): the site rounded, times to the minute.
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'moderator')
   const { id } = await getValidatedRouterParams(event, validParams)
@@ -10,6 +11,8 @@ export default defineEventHandler(async (event) => {
   const db = useDb()
   const observation = await db.selectFrom('observations').selectAll().where('id', '=', sketch.observation_id).executeTakeFirstOrThrow()
   const [dto] = await loadObservationDtos(db, [observation])
+  const ownEntry = sketch.user_id === user.id
+  const site = await db.selectFrom('sites').select(['latitude', 'longitude']).where('id', '=', observation.site_id).executeTakeFirstOrThrow()
   const observer = await db.selectFrom('users').select('name').where('id', '=', sketch.user_id).executeTakeFirstOrThrow()
   return {
     sketch: {
@@ -20,10 +23,10 @@ export default defineEventHandler(async (event) => {
       flip: sketch.view_flip,
       hasRaster: sketchHasImage(sketch),
       submittedAt: sketch.submitted_at,
-      ownEntry: sketch.user_id === user.id,
+      ownEntry,
     },
     observer: observer.name,
-    observation: dto!,
+    observation: ownEntry ? dto! : observationForReviewer(dto!, site),
     history: await entryHistory(db, sketch.id),
     pins: await pinsOf(sketch.id),
   }

@@ -14,8 +14,7 @@ export default defineEventHandler(async (event) => {
   if (q.phase) query = query.where('observations.phase_name', '=', q.phase)
   if (q.instrument) query = query.where('observations.instrument_kind', '=', q.instrument)
   if (q.observer) {
-    const like = `%${q.observer.toLowerCase().replace(/[\\%_]/g, m => `\\${m}`)}%`
-    query = query.where(eb => eb(eb.fn('lower', ['users.name']), 'like', like))
+    query = query.where(containsLike('users.name', q.observer))
   }
   const { total } = await query.select(eb => eb.fn.countAll<number>().as('total')).executeTakeFirstOrThrow()
   const rows = await query
@@ -35,7 +34,8 @@ export default defineEventHandler(async (event) => {
       observer: r.observer,
       ownEntry: r.user_id === user.id,
       submittedAt: r.submitted_at,
-      observedAt: r.observed_at,
+      // To the minute: a reviewer needs no more, and seconds help no one but someone placing the site.
+      observedAt: toMinute(r.observed_at),
       localDate: r.local_date,
       phaseName: r.phase_name,
       illuminatedFraction: r.illuminated_fraction,

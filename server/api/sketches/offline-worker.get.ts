@@ -4,12 +4,21 @@
 // API requests are never touched.
 //
 // Served from here rather than as a static file so it stays with the sketch code; the header below lets a
-// script under /api/sketches/ control /sketches/.
-const WORKER = `
-const CACHE = 'shadowline-sketch-pages-1'
+// script under /api/sketches/ control /sketches/. Its cache is named after the build, and a new build's
+// worker drops every older cache when it takes over, so no page is ever served code of another build. In
+// development the app registers no worker, and this route answers with one that removes itself (and its
+// caches) from a browser that still holds a worker from before.
+const CACHE_PREFIX = 'shadowline-sketch-pages-'
+
+const worker = (buildId: string) => `
+const CACHE = ${JSON.stringify(CACHE_PREFIX + buildId)}
 
 self.addEventListener('install', () => self.skipWaiting())
-self.addEventListener('activate', (event) => event.waitUntil(self.clients.claim()))
+self.addEventListener('activate', (event) => event.waitUntil(
+  caches.keys()
+    .then((keys) => Promise.all(keys.filter((key) => key.startsWith(${JSON.stringify(CACHE_PREFIX)}) && key !== CACHE).map((key) => caches.delete(key))))
+    .then(() => self.clients.claim()),
+))
 
 // The page lists what it loaded before this worker was in control, so the next offline visit has it all.
 self.addEventListener('message', (event) => {
@@ -45,11 +54,22 @@ self.addEventListener('fetch', (event) => {
 })
 `
 
+const REMOVE_ITSELF = `
+self.addEventListener('install', () => self.skipWaiting())
+self.addEventListener('activate', (event) => event.waitUntil(
+  caches.keys()
+    .then((keys) => Promise.all(keys.filter((key) => key.startsWith(${JSON.stringify(CACHE_PREFIX)})).map((key) => caches.delete(key))))
+    .then(() => self.registration.unregister())
+    .then(() => self.clients.matchAll({ type: 'window' }))
+    .then((clients) => clients.forEach((client) => client.navigate(client.url))),
+))
+`
+
 export default defineEventHandler((event) => {
   setResponseHeaders(event, {
     'content-type': 'text/javascript; charset=utf-8',
     'cache-control': 'no-cache',
     'service-worker-allowed': '/sketches/',
   })
-  return WORKER
+  return import.meta.dev ? REMOVE_ITSELF : worker(useRuntimeConfig(event).app.buildId)
 })

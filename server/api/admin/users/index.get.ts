@@ -10,11 +10,8 @@ export default defineEventHandler(async (event): Promise<Page<AdminUserRow>> => 
   let base = db.selectFrom('users')
   if (query.role) base = base.where('role', '=', query.role)
   if (query.q) {
-    const like = `%${query.q.toLowerCase().replace(/[\\%_]/g, m => `\\${m}`)}%`
-    base = base.where(eb => eb.or([
-      eb(eb.fn('lower', ['name']), 'like', like),
-      eb('email', 'like', like),
-    ]))
+    const text = query.q
+    base = base.where(eb => eb.or([containsLike('name', text), containsLike('email', text)]))
   }
   const { total } = await base.select(eb => eb.fn.countAll<number>().as('total')).executeTakeFirstOrThrow()
   const rows = await base

@@ -7,7 +7,7 @@ export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'observer')
   const { id } = await getValidatedRouterParams(event, validParams)
   const db = useDb()
-  const row = await findSketch(db, user, id, 'read')
+  const row = await findSketch(db, user, id, 'review')
   const images = row && await currentImages(db, useObjectStore(), row)
   if (!images) throw createError({ status: 404, message: 'This sketch has no saved image yet.' })
   return sendStoredObject(event, images.raster, 'private, no-cache')

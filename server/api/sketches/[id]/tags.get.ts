@@ -5,6 +5,6 @@ const validParams = parseWith(IdParams)
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'observer')
   const { id } = await getValidatedRouterParams(event, validParams)
-  await sketchForPins(user, id, 'read')
+  await sketchForPins(user, id, 'review')
   return pinsOf(id)
 })

@@ -12,7 +12,7 @@ export default defineEventHandler(async (event) => {
   const { id } = await getValidatedRouterParams(event, validParams)
   const { size } = await getValidatedQuery(event, validQuery)
   const db = useDb()
-  const row = await findSketch(db, user, id, 'read')
+  const row = await findSketch(db, user, id, 'review')
   const images = row && await currentImages(db, useObjectStore(), row)
   const key = size === '512' ? images?.large : images?.small
   if (!key) throw createError({ status: 404, message: 'This sketch has no saved image yet.' })
