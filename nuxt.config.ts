@@ -72,7 +72,7 @@ export default defineNuxtConfig({
     externals: {
       // Native and CommonJS-heavy packages are loaded from the project's node_modules
       // at run time rather than bundled or copied: the server runs from the checkout.
-      external: ['better-sqlite3', 'sharp', 's3rver', 'smtp-server', 'mailparser', '@aws-sdk/client-s3', 'nodemailer'],
+      external: ['better-sqlite3', 'sharp', '@napi-rs/canvas', 's3rver', 'smtp-server', 'mailparser', '@aws-sdk/client-s3', 'nodemailer'],
       trace: false,
     },
   },

@@ -1,33 +1,24 @@
 import { FetchError } from 'ofetch'
-import { get as readLocal, set as writeLocal } from 'idb-keyval'
-import type { DiskView } from '#shared/lunar'
+import { lunarCircumstances } from '#shared/lunar'
+import type { DiskGeometry } from '#shared/lunar'
 import type { SketchConflict, SketchDetail, SketchSaved } from '#shared/sketch/api'
 import { DISK_RADIUS, SKETCH_SIZE } from '#shared/sketch/frame'
+import { stepsBetween } from '#shared/sketch/operations'
+import type { DrawingState } from '#shared/sketch/operations'
 import { SHAPES_SCHEMA_VERSION } from '#shared/sketch/schema'
-import type { Stroke } from '#shared/sketch/schema'
-
-/** What the device keeps of an open sketch in IndexedDB, written as it changes. */
-interface LocalCopy {
-  id: string
-  /** The server's answer when last loaded (without its strokes), so the page can open with no network. */
-  detail: Omit<SketchDetail, 'shapes'>
-  strokes: readonly Stroke[]
-  view: DiskView
-  baseVersion: number
-  edits: number
-  savedEdit: number
-  /** A save that was sent but not confirmed: retried with the same id, it lands at most once. */
-  pending: { saveId: string, atEdit: number, baseVersion: number } | null
-  writtenAt: string
-}
+import type { LocalCopy, PendingSave } from './useSketchLocal'
 
 const AUTOSAVE_EVERY_MS = 5000
 /** Saves wait for a pause in the drawing, so an autosave never cuts into a run of strokes. */
 const QUIET_MS = 1500
 
-const localKey = (id: string) => `shadowline.sketch.${id}`
+/** A save kept by an editor from before saves were operations carries no request: it is built afresh. */
+function replayable(saved: PendingSave | null | undefined): PendingSave | null {
+  return saved?.method && saved.body ? saved : null
+}
 
-function randomUuid(): string {
+/** A v4 UUID, also where crypto.randomUUID is missing (pages served over plain http on a club network). */
+export function randomUuid(): string {
   if (typeof crypto.randomUUID === 'function') return crypto.randomUUID()
   const b = crypto.getRandomValues(new Uint8Array(16))
   b[6] = (b[6]! & 0x0F) | 0x40
@@ -37,14 +28,20 @@ function randomUuid(): string {
 }
 
 /**
- * Never lose a stroke: every change is written to IndexedDB at once, a reopened page takes the local copy
- * when it holds edits the server has not confirmed, and saves go to the server on request and every few
- * seconds while online. A refused save that raced another tab turns into a choice for the observer.
+ * Never lose a stroke: every change is written to IndexedDB at once, a reopened page
+ * takes the local copy when it holds edits the server has not confirmed, and saves go to the server on
+ * request and every few seconds while online. A save sends only what changed since the drawing the server
+ * confirmed (PATCH); the whole drawing goes (PUT) when this device no longer knows that drawing, or the
+ * server refused the changes. A refused save that raced another tab turns into a choice for the observer.
  */
 export function useSketchSync(id: string) {
   const store = useSketchStore()
+  const local = useSketchLocal(id)
   const online = ref(true)
   let pending: LocalCopy['pending'] = null
+  /** Set when the server refused a list of changes: the next save sends the whole drawing. */
+  let sendWhole = false
+  let geometry: { at: string, value: DiskGeometry } | null = null
   let lastEditAt = 0
   let lastAttemptAt = 0
   let tickTimer: ReturnType<typeof setInterval> | undefined
@@ -55,13 +52,16 @@ export function useSketchSync(id: string) {
     if (!detail || !detail.editable) return
     const { shapes: _shapes, ...meta } = detail
     const copy: LocalCopy = { id, detail: meta, ...store.localState(), pending, writtenAt: new Date().toISOString() }
-    await writeLocal(localKey(id), copy).catch(() => undefined)
+    await local.write(copy).catch(() => undefined)
   }
 
   let writing: Promise<void> | null = null
   let writeAgain = false
 
-  /** Writes at once; changes made while a write is running are written right after it, in one go. */
+  /**
+   * Writes at once (a new stroke is one small record and the list of keys: useSketchLocal); changes made
+   * while a write is running are written right after it, in one go.
+   */
   function persistSoon() {
     if (writing) {
       writeAgain = true
@@ -78,18 +78,18 @@ export function useSketchSync(id: string) {
 
   /** Opens the sketch from the server's answer and whatever this device still holds. */
   async function open(server: SketchDetail | null): Promise<boolean> {
-    const local = await readLocal<LocalCopy>(localKey(id)).catch(() => undefined)
-    const unconfirmed = local && local.edits !== local.savedEdit
+    const copy = await local.read().catch(() => undefined)
+    const unconfirmed = copy && copy.edits !== copy.savedEdit
     if (!server) {
-      if (!local) return false
-      store.open({ ...local.detail, shapes: { schemaVersion: SHAPES_SCHEMA_VERSION, frame: { size: SKETCH_SIZE, diskRadius: DISK_RADIUS }, strokes: [] } }, local)
-      pending = local.pending
+      if (!copy) return false
+      store.open({ ...copy.detail, shapes: { schemaVersion: SHAPES_SCHEMA_VERSION, frame: { size: SKETCH_SIZE, diskRadius: DISK_RADIUS }, strokes: [] } }, copy, false)
+      pending = replayable(copy.pending)
       store.sync = 'offline'
       return true
     }
-    if (server.editable && local && unconfirmed) {
-      store.open(server, local)
-      pending = local.pending
+    if (server.editable && copy && unconfirmed) {
+      store.open(server, copy)
+      pending = replayable(copy.pending)
       // The server decides: the save lands, or a 409 shows that another copy moved on.
       store.sync = 'pending'
     }
@@ -98,35 +98,55 @@ export function useSketchSync(id: string) {
       store.sync = server.editable ? 'saved' : 'read-only'
     }
     await persist()
+    void local.sweep().catch(() => undefined)
     return true
   }
 
-  function shapesJson(strokes: readonly Stroke[]): string {
-    return JSON.stringify({ schemaVersion: SHAPES_SCHEMA_VERSION, frame: { size: SKETCH_SIZE, diskRadius: DISK_RADIUS }, strokes })
+  function sketchGeometry(): DiskGeometry | null {
+    const observation = store.detail?.observation
+    if (!observation) return null
+    if (geometry?.at !== observation.observedAt) {
+      geometry = { at: observation.observedAt, value: lunarCircumstances(new Date(observation.observedAt), observation.site) }
+    }
+    return geometry.value
+  }
+
+  /** The next save: the changes since the confirmed drawing, or the whole drawing; null when nothing changed. */
+  function nextSave(): PendingSave | null {
+    const atEdit = store.edits
+    const baseVersion = store.baseVersion
+    const target: DrawingState = { strokes: store.strokes, view: { ...store.view } }
+    const saveId = randomUuid()
+    const geometry = sketchGeometry()
+    const steps = store.confirmed && geometry && !sendWhole ? stepsBetween(store.confirmed, target, geometry) : null
+    if (steps?.length === 0) {
+      // Undone back to what the server holds.
+      store.markSaved(baseVersion, atEdit, target)
+      return null
+    }
+    if (steps) return { saveId, baseVersion, atEdit, method: 'PATCH', body: { baseVersion, saveId, steps }, result: target }
+    const shapes = { schemaVersion: SHAPES_SCHEMA_VERSION, frame: { size: SKETCH_SIZE, diskRadius: DISK_RADIUS }, strokes: target.strokes }
+    return { saveId, baseVersion, atEdit, method: 'PUT', body: { baseVersion, saveId, ...target.view, shapes }, result: target }
   }
 
   async function send() {
-    const atEdit = store.edits
-    const strokes = store.strokes
-    const view = { ...store.view }
-    const baseVersion = store.baseVersion
-    if (!pending || pending.atEdit !== atEdit || pending.baseVersion !== baseVersion) {
-      pending = { saveId: randomUuid(), atEdit, baseVersion }
+    // A save sent on another base (before a conflict was settled) can no longer land.
+    if (pending && pending.baseVersion !== store.baseVersion) pending = null
+    pending ??= nextSave()
+    const sent = pending
+    if (!sent) {
+      store.sync = 'saved'
+      await persist()
+      return
     }
     await persist()
     store.sync = 'saving'
     lastAttemptAt = Date.now()
     try {
-      const form = new FormData()
-      form.set('baseVersion', String(baseVersion))
-      form.set('saveId', pending.saveId)
-      form.set('orientation', view.orientation)
-      form.set('flip', view.flip)
-      form.set('shapes', shapesJson(strokes))
-      form.set('raster', await renderSketchRaster(strokes), 'sketch.png')
-      const saved = await $fetch<SketchSaved>(`/api/sketches/${id}`, { method: 'PUT', body: form })
+      const saved = await $fetch<SketchSaved>(`/api/sketches/${id}`, { method: sent.method, body: sent.body })
       pending = null
-      store.markSaved(saved.version, atEdit)
+      sendWhole = false
+      store.markSaved(saved.version, sent.atEdit, sent.result)
       store.sync = store.dirty ? 'pending' : 'saved'
       store.syncMessage = ''
     }
@@ -139,6 +159,11 @@ export function useSketchSync(id: string) {
         store.sync = 'offline'
       }
       else {
+        if (error instanceof FetchError && error.statusCode && error.statusCode < 500) {
+          // Refused as it stands: it will never land, so the next save sends the whole drawing afresh.
+          pending = null
+          sendWhole = true
+        }
         store.sync = 'error'
         store.syncMessage = apiErrorMessage(error)
       }
@@ -179,7 +204,8 @@ export function useSketchSync(id: string) {
   /** Conflict: save this copy on top of the other one, which stays in the revision history. */
   async function keepLocalCopy() {
     if (store.conflictVersion == null) return
-    store.baseVersion = store.conflictVersion
+    store.rebase(store.conflictVersion)
+    pending = null
     store.conflictVersion = null
     store.sync = 'pending'
     await save()

@@ -3,6 +3,7 @@ import type { Role } from '../shared/roles'
 import type { InstrumentKind, InstrumentView } from '../shared/observing/instrument'
 import type { SketchStatus } from '../shared/review/lifecycle'
 import type { FormationKind } from '../shared/features/formations'
+import type { CheckpointReason } from '../shared/sketch/api'
 
 export type { SketchStatus }
 
@@ -170,6 +171,8 @@ export interface SketchesTable {
   raster_key: string | null
   thumb_small_key: string | null
   thumb_large_key: string | null
+  /** The version the stored image was drawn from (2026-12-02-30); an older one is redrawn when next read. */
+  raster_version: ColumnType<number | null, number | null | undefined, number | null>
   submitted_at: Instant | null
   created_at: CreatedAt
   updated_at: Instant
@@ -188,6 +191,10 @@ export interface SketchRevisionsTable {
   created_at: CreatedAt
   /** The editor's id for the save that made this revision (2026-12-02-05); null for the first, empty one. */
   save_id: ColumnType<string | null, string | null | undefined, never>
+  /** JSON list of the steps that made this version from the one before (2026-12-02-30); null for none. */
+  operations: ColumnType<string | null, string | null | undefined, string | null>
+  /** Why `shapes` holds the whole drawing at this version; null when it is empty and only `operations` count. */
+  checkpoint: ColumnType<CheckpointReason | null, CheckpointReason | null | undefined, CheckpointReason | null>
 }
 
 export interface SketchReviewsTable {

@@ -2,6 +2,7 @@ import { defineStore } from 'pinia'
 import type { DiskGeometry, DiskView } from '#shared/lunar'
 import type { SketchDetail } from '#shared/sketch/api'
 import { reframer, sameView } from '#shared/sketch/frame'
+import type { DrawingState } from '#shared/sketch/operations'
 import type { SketchTool, Stroke } from '#shared/sketch/schema'
 import { mapStrokes } from '#shared/sketch/strokes'
 
@@ -18,6 +19,10 @@ interface Snapshot {
 
 const HISTORY_LIMIT = 200
 
+function frozen(state: DrawingState | null | undefined): DrawingState | null {
+  return state ? { strokes: Object.freeze(state.strokes.map(s => Object.freeze(s))), view: { ...state.view } } : null
+}
+
 /** The part of the open sketch kept on the device between visits. */
 export interface LocalSketchState {
   strokes: readonly Stroke[]
@@ -25,6 +30,8 @@ export interface LocalSketchState {
   baseVersion: number
   edits: number
   savedEdit: number
+  /** The drawing as the server holds it at `baseVersion`; null when this device no longer knows it. */
+  confirmed?: DrawingState | null
 }
 
 /**
@@ -40,6 +47,8 @@ export const useSketchStore = defineStore('sketch', () => {
   /** Counts local edits; `savedEdit` is the count the server last confirmed. */
   const edits = ref(0)
   const savedEdit = ref(0)
+  /** The drawing the server holds at `baseVersion`: an autosave sends only what differs from it. */
+  const confirmed = shallowRef<DrawingState | null>(null)
   const undoStack = shallowRef<Snapshot[]>([])
   const redoStack = shallowRef<Snapshot[]>([])
 
@@ -78,14 +87,28 @@ export const useSketchStore = defineStore('sketch', () => {
 
   /** Opens a sketch: the server's copy, or a local copy with edits the server has not seen yet. */
   function localState(): LocalSketchState {
-    return { strokes: strokes.value, view: { ...view.value }, baseVersion: baseVersion.value, edits: edits.value, savedEdit: savedEdit.value }
+    return {
+      strokes: strokes.value,
+      view: { ...view.value },
+      baseVersion: baseVersion.value,
+      edits: edits.value,
+      savedEdit: savedEdit.value,
+      confirmed: confirmed.value,
+    }
   }
 
-  function open(server: SketchDetail, local?: LocalSketchState) {
+  /** `fromServer` is false when `server` is this device's note of the sketch, without its strokes. */
+  function open(server: SketchDetail, local?: LocalSketchState, fromServer = true) {
     detail.value = server
-    strokes.value = Object.freeze((local?.strokes ?? server.shapes.strokes).map(s => Object.freeze(s)))
+    const serverState = { strokes: Object.freeze(server.shapes.strokes.map(s => Object.freeze(s))), view: { ...server.view } }
+    strokes.value = local ? Object.freeze(local.strokes.map(s => Object.freeze(s))) : serverState.strokes
     view.value = { ...(local?.view ?? server.view) }
     baseVersion.value = local?.baseVersion ?? server.version
+    // A local copy keeps the drawing its base version held; one from before it did takes the server's drawing
+    // when built on the server's current version, and is otherwise saved whole.
+    confirmed.value = !local
+      ? serverState
+      : frozen(local.confirmed) ?? (fromServer && local.baseVersion === server.version ? serverState : null)
     edits.value = local?.edits ?? 0
     savedEdit.value = local?.savedEdit ?? 0
     undoStack.value = []
@@ -133,17 +156,24 @@ export const useSketchStore = defineStore('sketch', () => {
     restore(next)
   }
 
-  /** The server took the copy made at edit `atEdit` as `version`. */
-  function markSaved(version: number, atEdit: number) {
+  /** The server took the copy made at edit `atEdit` as `version`, holding `state`. */
+  function markSaved(version: number, atEdit: number, state: DrawingState) {
     baseVersion.value = version
     savedEdit.value = atEdit
+    confirmed.value = state
     if (detail.value) detail.value = { ...detail.value, version, hasRaster: true }
   }
 
+  /** Another copy moved on to `version`: this one will be saved whole on top of it. */
+  function rebase(version: number) {
+    baseVersion.value = version
+    confirmed.value = null
+  }
+
   return {
-    detail, strokes, view, baseVersion, edits, savedEdit, dirty, canUndo, canRedo, editable,
+    detail, strokes, view, baseVersion, edits, savedEdit, confirmed, dirty, canUndo, canRedo, editable,
     tool, tone, sizes, templateVisible, templateOpacity, gridVisible, penOnly,
     sync, syncMessage, conflictVersion,
-    open, localState, addStroke, setView, clearAll, undo, redo, markSaved,
+    open, localState, addStroke, setView, clearAll, undo, redo, markSaved, rebase,
   }
 })

@@ -7,6 +7,7 @@ import * as review from './2026-12-02-06-review'
 import * as features from './2026-12-02-07-features'
 import * as sessionsOutboxRemovals from './2026-12-02-10-sessions-outbox-removals'
 import * as groups from './2026-12-02-20-groups'
+import * as sketchHistory from './2026-12-02-30-sketch-history'
 import * as formations from './2026-12-02-35-formations'
 import * as nameSearchKeys from './2026-12-02-36-name-search-keys'
 import * as atlasReadPath from './2026-12-02-40-atlas-read-path'
@@ -23,6 +24,7 @@ export const migrations: Record<string, Migration> = {
   '2026-12-02-07-features': features,
   '2026-12-02-10-sessions-outbox-removals': sessionsOutboxRemovals,
   '2026-12-02-20-groups': groups,
+  '2026-12-02-30-sketch-history': sketchHistory,
   '2026-12-02-35-formations': formations,
   '2026-12-02-36-name-search-keys': nameSearchKeys,
   '2026-12-02-40-atlas-read-path': atlasReadPath,

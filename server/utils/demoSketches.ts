@@ -97,13 +97,14 @@ async function sketchObservation(db: Kysely<Database>, store: ObjectStore, obser
   const sketch = {
     id, observation_id: observation.id, user_id: owner, status, version: 2, schema_version: SHAPES_SCHEMA_VERSION,
     shapes: JSON.stringify(shapes), view_orientation: VIEW.orientation, view_flip: VIEW.flip,
-    raster_key: keys.raster, thumb_small_key: keys.small, thumb_large_key: keys.large, submitted_at: at, created_at: at, updated_at: at,
+    raster_key: keys.raster, thumb_small_key: keys.small, thumb_large_key: keys.large, raster_version: 2, submitted_at: at, created_at: at, updated_at: at,
   } as const
   await db.transaction().execute(async (trx) => {
     await trx.insertInto('sketches').values(sketch).execute()
     await trx.insertInto('sketch_revisions').values({
       id: newId(), sketch_id: id, version: 2, schema_version: SHAPES_SCHEMA_VERSION, shapes: sketch.shapes,
       view_orientation: VIEW.orientation, view_flip: VIEW.flip, raster_key: keys.raster, created_by: owner, created_at: at, save_id: saveId,
+      checkpoint: 'submitted',
     }).execute()
     await trx.insertInto('sketch_reviews').values({ id: newId(), sketch_id: id, actor_id: owner, from_status: 'draft', to_status: 'submitted', comment: '', created_at: at }).execute()
     if (status !== 'submitted') {

@@ -1,9 +1,14 @@
+import { Path2D as CanvasPath2D, createCanvas } from '@napi-rs/canvas'
 import { createError } from 'h3'
 import sharp from 'sharp'
+import { paintRaster } from '../../shared/sketch/paint'
+import type { RasterContext } from '../../shared/sketch/paint'
+import type { Stroke } from '../../shared/sketch/schema'
 import type { ObjectStore } from './storage'
 
-// The sketch raster the editor uploads: checked, decoded once, re-encoded as WebP with two thumbnails. The
-// server never keeps the uploaded bytes themselves, so no metadata the client's encoder wrote survives.
+// Sketch images. The editor's own images are drawn here from the stored shapes (drawRaster); an image made
+// elsewhere (the demo's) is checked, decoded once and re-encoded as WebP with two thumbnails, so no metadata
+// another encoder wrote survives.
 
 export type RasterFormat = 'png' | 'webp'
 
@@ -88,4 +93,45 @@ export async function ingestRaster(store: ObjectStore, prefix: string, input: Ui
 /** Removes the images of a save that lost a race; a failure leaves an unreferenced object, nothing worse. */
 export async function discardRaster(store: ObjectStore, keys: RasterKeys): Promise<void> {
   await Promise.all(Object.values(keys).map(key => store.remove(key).catch(() => undefined)))
+}
+
+// ---- Images drawn on the server from the stored shapes ----
+
+// The shared painter builds its outlines with the global Path2D, which Node lacks; the canvas package's own
+// is the one its context fills.
+const paths = globalThis as { Path2D?: unknown }
+paths.Path2D ??= CanvasPath2D
+
+/**
+ * Paints a drawing with the editor's painter (shared/sketch/paint.ts) on a Node canvas and encodes the
+ * image and its thumbnails with sharp. Each thumbnail is painted at its own size rather than scaled down,
+ * which is quicker than resampling a 2048² image and just as sharp.
+ */
+export async function drawRaster(strokes: readonly Stroke[], size: number): Promise<PreparedRaster> {
+  const [full, large, small] = await Promise.all([
+    encodePainted(strokes, size, size, 90),
+    encodePainted(strokes, SKETCH_THUMBNAIL_SIZES.large, size, 82),
+    encodePainted(strokes, SKETCH_THUMBNAIL_SIZES.small, size, 82),
+  ])
+  return { full, large, small }
+}
+
+/** The drawing at `edge` pixels as RGBA, painted as the browser paints it. */
+export function paintPixels(strokes: readonly Stroke[], edge: number, size: number): Buffer {
+  const canvas = createCanvas(edge, edge)
+  const ctx = canvas.getContext('2d')
+  paintRaster(ctx as unknown as RasterContext, strokes, edge, size)
+  return Buffer.from(ctx.getImageData(0, 0, edge, edge).data.buffer)
+}
+
+function encodePainted(strokes: readonly Stroke[], edge: number, size: number, quality: number): Promise<Buffer> {
+  return sharp(paintPixels(strokes, edge, size), { raw: { width: edge, height: edge, channels: 4 } })
+    .removeAlpha()
+    .webp({ quality, effort: 4 })
+    .toBuffer()
+}
+
+/** One small image of a drawing, for lists of versions. */
+export function drawThumbnail(strokes: readonly Stroke[], edge: number, size: number): Promise<Buffer> {
+  return encodePainted(strokes, edge, size, 82)
 }

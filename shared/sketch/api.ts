@@ -56,12 +56,29 @@ export interface SketchListItem {
   observation: { id: string, observedAt: string, timeZone: string, siteName: string, phaseName: string, illuminatedFraction: number }
 }
 
+/**
+ * Why a version was kept whole. created: the empty page; saved: a save from before saves were operations;
+ * full: a whole-drawing save (a first save, "keep mine" after a conflict); restored: an earlier version brought
+ * back; session: the drawing as a session left it; interval: a copy every so often in a long session;
+ * submitted: the version sent for review.
+ */
+export type CheckpointReason = 'created' | 'saved' | 'full' | 'restored' | 'session' | 'interval' | 'submitted'
+
+/** A version kept whole, from which the sketch can be brought back. */
 export interface SketchRevisionItem {
   version: number
   createdAt: string
   createdBy: string
-  hasRaster: boolean
+  reason: CheckpointReason
+  strokes: number
   view: DiskView
+}
+
+export interface SketchRevisionList {
+  /** The sketch's current version: a restore names it as its base. */
+  version: number
+  editable: boolean
+  checkpoints: SketchRevisionItem[]
 }
 
 /** One line per sketch for the observation lists (server/utils/sketches.ts, sketchesForObservations). */

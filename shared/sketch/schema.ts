@@ -23,7 +23,7 @@ export const SIZE_RANGE: Record<Exclude<SketchTool, 'fill'>, { min: number, max:
   eraser: { min: 4, max: 320 },
 }
 
-const StrokeId = z.string().regex(/^[\w-]{1,40}$/, 'A stroke id is 1–40 letters, digits, - or _.')
+export const StrokeId = z.string().regex(/^[\w-]{1,40}$/, 'A stroke id is 1–40 letters, digits, - or _.')
 const Tone = z.number().min(0, 'A tone runs from 0 (dark) to 1 (lit).').max(1, 'A tone runs from 0 (dark) to 1 (lit).')
 const Size = (tool: keyof typeof SIZE_RANGE) => z.number()
   .min(SIZE_RANGE[tool].min, `A ${tool} is ${SIZE_RANGE[tool].min} to ${SIZE_RANGE[tool].max} units wide.`)
@@ -174,6 +174,27 @@ export const SaveSketchHead = z.object({
 export const SaveSketchFields = SaveSketchHead.extend({ shapes: SketchShapesText })
 
 export type SaveSketchFields = z.infer<typeof SaveSketchFields>
+
+/** A save of the whole drawing as JSON: the first save, one whose base the editor lost, "keep mine". */
+export const FullSaveBody = z.strictObject({
+  baseVersion: z.number().int().min(1, 'baseVersion is the version you started from.'),
+  saveId: z.uuid('saveId must be a UUID.'),
+  orientation: SketchOrientation,
+  flip: SketchFlip,
+  shapes: SketchShapes,
+})
+export type FullSaveBody = z.infer<typeof FullSaveBody>
+
+export const RevisionParams = z.object({
+  id: z.uuid('Unknown sketch.'),
+  version: z.coerce.number({ error: 'A version is a whole number.' }).int('A version is a whole number.').min(1, 'Versions start at 1.'),
+})
+
+/** Bringing back an earlier version makes it the next one, on top of the version the page showed. */
+export const RestoreBody = z.strictObject({
+  baseVersion: z.number().int().min(1, 'baseVersion is the version you started from.'),
+  saveId: z.uuid('saveId must be a UUID.'),
+})
 
 export const SketchListQuery = z.object({
   page: z.coerce.number().int().min(1).max(10_000).default(1),

@@ -5,7 +5,7 @@ export default defineEventHandler(async (event) => {
   const rows = await db.selectFrom('sketches')
     .innerJoin('observations', 'observations.id', 'sketches.observation_id')
     .select([
-      'sketches.id', 'sketches.status', 'sketches.updated_at', 'sketches.submitted_at', 'sketches.raster_key',
+      'sketches.id', 'sketches.status', 'sketches.version', 'sketches.updated_at', 'sketches.submitted_at', 'sketches.raster_key',
       'observations.id as observation_id', 'observations.local_date', 'observations.phase_name', 'observations.illuminated_fraction',
     ])
     .where('sketches.user_id', '=', user.id)
@@ -24,7 +24,8 @@ export default defineEventHandler(async (event) => {
     status: r.status,
     updatedAt: r.updated_at,
     submittedAt: r.submitted_at,
-    hasRaster: r.raster_key != null,
+    // Drawn from the shapes when first shown; every saved sketch has one.
+    hasRaster: sketchHasImage(r),
     observationId: r.observation_id,
     localDate: r.local_date,
     phaseName: r.phase_name,

@@ -21,7 +21,7 @@ export default defineEventHandler(async (event) => {
       version: sketch.version,
       orientation: sketch.view_orientation,
       flip: sketch.view_flip,
-      hasRaster: sketch.raster_key != null,
+      hasRaster: sketchHasImage(sketch),
       submittedAt: sketch.submitted_at,
       ownEntry,
     },

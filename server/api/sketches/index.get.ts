@@ -30,7 +30,7 @@ export default defineEventHandler(async (event): Promise<{ items: SketchListItem
       status: row.status,
       version: row.version,
       updatedAt: row.updated_at,
-      hasRaster: row.raster_key != null,
+      hasRaster: sketchHasImage(row),
       observation: {
         id: row.observation_id,
         observedAt: row.observed_at,

@@ -45,6 +45,7 @@ export default defineEventHandler(async (event) => {
       view_orientation: view.orientation,
       view_flip: view.flip,
       raster_key: null,
+      checkpoint: 'created',
       created_by: user.id,
       created_at: at,
     }).execute()

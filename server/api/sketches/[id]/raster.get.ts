@@ -2,11 +2,13 @@ import { SketchIdParams } from '#shared/sketch/schema'
 
 const validParams = parseWith(SketchIdParams)
 
-/** The latest save's full image (WebP, 2048 × 2048). */
+/** The latest version's full image (WebP, 2048 × 2048), drawn from its shapes if not drawn yet. */
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'observer')
   const { id } = await getValidatedRouterParams(event, validParams)
-  const row = await findSketch(useDb(), user, id, 'review')
-  if (!row?.raster_key) throw createError({ status: 404, message: 'This sketch has no saved image yet.' })
-  return sendStoredObject(event, row.raster_key, 'private, no-cache')
+  const db = useDb()
+  const row = await findSketch(db, user, id, 'review')
+  const images = row && await currentImages(db, useObjectStore(), row)
+  if (!images) throw createError({ status: 404, message: 'This sketch has no saved image yet.' })
+  return sendStoredObject(event, images.raster, 'private, no-cache')
 })
