@@ -25,7 +25,7 @@ import { migrateToLatest } from '../db/migrate'
 import { PHASE_NAMES } from '../shared/observing/phases'
 import { fillAtlas, sqliteForLoading } from './support/atlasData'
 import { freshDataDir, machine, measure, random, root, startServer, summarize, type Timing } from './support/http'
-import { startPostgresCluster, type PostgresCluster } from './support/postgres'
+import { startPostgresCluster, type PostgresCluster } from '../scripts/postgres-cluster.mjs'
 
 const args = process.argv.slice(2)
 const flag = (name: string) => args.includes(`--${name}`) || args.includes('--all')

@@ -1,4 +1,4 @@
-// A private, throw-away PostgreSQL cluster for the server tests: initdb in a temporary folder, a free port on
+// A private, throw-away PostgreSQL cluster for the server tests, the atlas query-plan test and benchmark: initdb in a temporary folder, a free port on
 // 127.0.0.1, trust authentication, no durability (it is deleted afterwards). PostgreSQL refuses to run as
 // root, so as root the cluster belongs to the `postgres` account that Debian's package creates.
 import { execFileSync } from 'node:child_process'
@@ -36,8 +36,9 @@ export async function startPostgresCluster() {
   asOwner(owner, join(bin, 'initdb'), ['-D', data, '-U', 'postgres', '--auth=trust', '-E', 'UTF8', '--locale=C.UTF-8', '--no-sync'])
   const options = [
     `-p ${port}`, `-k ${dir}`, '-c listen_addresses=127.0.0.1',
-    // A test cluster is thrown away, so it need not survive a crash.
-    '-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off', '-c max_connections=200',
+    // Thrown away afterwards, so it need not survive a crash; this only speeds up loading test and benchmark
+    // data. Otherwise PostgreSQL's default memory settings, as a small deployment would run it.
+    '-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off', '-c max_connections=200', '-c max_wal_size=4GB',
   ].join(' ')
   asOwner(owner, join(bin, 'pg_ctl'), ['-D', data, '-o', options, '-l', join(dir, 'log'), '-w', '-t', '60', 'start'])
   return {
