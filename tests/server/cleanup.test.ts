@@ -104,6 +104,8 @@ describe('deletion leaves nothing behind', () => {
     const photo = await upload(await smallPhoto(), { siteId, localDate: '2026-11-25', localTime: '19:20' })
     expect(photo.body.observationId).toBe(observationId)
 
+    // Saves draw no image; the first read draws and stores it, so there is something to remove.
+    expect((await owner.get(`/api/sketches/${sketchId}/thumbnail`)).status).toBe(200)
     const objectsWith = storedObjects()
     expect(objectsWith.filter(k => k.startsWith(`sketches/${sketchId}/`)).length).toBeGreaterThan(0)
     expect(objectsWith.filter(k => k.includes(photo.body.id)).length).toBe(2)

@@ -3,6 +3,8 @@ import { createServer, type AddressInfo } from 'node:net'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { describe, expect, it } from 'vitest'
+import { DEMO_ACCOUNTS } from '../../db/seed'
+import { DEMO_PUPILS } from '../../db/seedCampaign'
 import { startEmbeddedS3 } from '../../server/utils/embedded'
 import { Client, DEMO, startApp } from '../support/app'
 import { createTestDatabase } from '../support/database'
@@ -76,7 +78,8 @@ describe('start-up', () => {
           await admin.signIn(DEMO.admin.email, DEMO.admin.password)
           const users = await admin.get('/api/admin/users')
           expect(users.status).toBe(200)
-          expect(users.body.total).toBe(Object.keys(DEMO).length)
+          // Seeded once: each demo account and pupil exactly once.
+          expect(users.body.total).toBe(new Set([...DEMO_ACCOUNTS, ...DEMO_PUPILS].map(a => a.email)).size)
         }
       }
       finally {

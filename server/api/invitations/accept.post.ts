@@ -15,7 +15,7 @@ export default defineEventHandler(async (event) => {
   await addMember(db, invitation.group_id, user.id, 'active')
   // The link reached this address, which confirms it as well.
   const verified = await markEmailVerified(db, user)
-  await setUserSession(event, { user: toSessionUser(verified) })
+  await setUserSession(event, { user: toSessionUser(verified) }, sessionConfig(event))
   await audit(db, { actorId: user.id, action: 'group.invitation-accepted', subjectType: 'group', subjectId: invitation.group_id })
   return { groupId: invitation.group_id, name: invitation.group_name }
 })

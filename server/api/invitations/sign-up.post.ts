@@ -29,7 +29,7 @@ export default defineEventHandler(async (event) => {
   })
   await addMember(db, invitation.group_id, id, 'active')
   const user = await db.selectFrom('users').selectAll().where('id', '=', id).executeTakeFirstOrThrow()
-  await replaceUserSession(event, { user: toSessionUser(user), loggedInAt: at })
+  await startSession(event, user)
   await audit(db, { actorId: id, action: 'user.signed-up-by-invitation', subjectType: 'group', subjectId: invitation.group_id })
   setResponseStatus(event, 201)
   return { groupId: invitation.group_id, name: invitation.group_name, user: toSessionUser(user) }
