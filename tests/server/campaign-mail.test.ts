@@ -1,18 +1,14 @@
-import { mkdtempSync, rmSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
 import type { Kysely } from 'kysely'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { createDatabase } from '../../db/connect'
-import { migrateToLatest } from '../../db/migrate'
 import type { Database } from '../../db/schema'
 import { optOutToken, queueCampaignMail, readOptOutToken } from '../../server/utils/campaignMail'
+import { openTestDatabase } from '../support/database'
 
 // Reminders and comment digests, queued straight into the outbox of a fresh database at chosen instants.
 
 process.env.NUXT_SESSION_PASSWORD ||= 'test-session-password-that-is-long-enough-0123456789'
 let db: Kysely<Database>
-const dir = mkdtempSync(join(tmpdir(), 'shadowline-campaign-mail-'))
+let close: () => Promise<void> = async () => undefined
 const at = '2026-11-01T00:00:00.000Z'
 // Europe/London keeps GMT (UTC+0) through November: 17:30 on the site's clock is 17:30 UTC.
 const NIGHTS = ['2026-11-12', '2026-11-13', '2026-11-14']
@@ -22,8 +18,9 @@ async function user(id: string, name: string) {
 }
 
 beforeAll(async () => {
-  db = await createDatabase({ url: ':memory:', dataDir: dir })
-  await migrateToLatest(db)
+  const opened = await openTestDatabase()
+  db = opened.db
+  close = opened.close
   await user('lead', 'Leader')
   await user('keen', 'Keen pupil')
   await user('quiet', 'Quiet pupil')
@@ -40,8 +37,7 @@ beforeAll(async () => {
   }).execute()
 })
 afterAll(async () => {
-  await db?.destroy()
-  rmSync(dir, { recursive: true, force: true })
+  await close()
 })
 
 const outbox = () => db.selectFrom('mail_outbox').selectAll().orderBy('created_at').execute()
